@@ -84,7 +84,7 @@ public sealed class ParquetTable
     private static async Task<Array> ReadColumn(ParquetRowGroupReader rg, DataField f, int n)
     {
         var t = f.ClrType;
-        if (t == typeof(string))
+        if (t == typeof(string) || t == typeof(ReadOnlyMemory<char>))
         {
             var s = new string?[n];
             await rg.ReadAsync(f, s.AsMemory());
