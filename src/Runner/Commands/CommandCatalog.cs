@@ -15,5 +15,6 @@ public static class CommandCatalog
     /// <summary>Every command, in the order help lists them.</summary>
     public static IEnumerable<IRunnerCommand> All() =>
     [
+        new InsolationCommand(),
     ];
 }
