@@ -12,7 +12,11 @@ plus pseudo-random points in the same box (fixed seed). Some corners of the box
 the "oceanographic funnel" in which the polynomial was fitted; there the values
 still test that this library evaluates the same polynomial as GSW.
 
-    /usr/bin/python3 generate_gsw_fixture.py     # writes gsw_rho_alpha_beta.csv
+Also writes gsw_p_from_z.csv: sea pressure at depths 0-8000 m and latitudes 0-60
+degrees from gsw.p_from_z (TEOS-10), the reference for the library's depth-to-pressure
+conversion.
+
+    /usr/bin/python3 generate_gsw_fixture.py     # writes gsw_rho_alpha_beta.csv, gsw_p_from_z.csv
 """
 import os
 
@@ -20,7 +24,6 @@ import gsw
 import numpy as np
 
 HERE = os.path.dirname(os.path.abspath(__file__))
-
 
 
 def main():
@@ -50,6 +53,15 @@ def main():
         for row in zip(SA, CT, p, rho, alpha, beta):
             f.write(",".join(repr(float(v)) for v in row) + "\n")
     print(f"{len(SA)} points")
+
+    depths = np.array([0.0, 10.0, 100.0, 500.0, 1000.0, 2000.0, 3000.0, 4000.0, 5000.0, 6000.0, 7000.0, 8000.0])
+    with open(os.path.join(HERE, "gsw_p_from_z.csv"), "w", encoding="ascii") as f:
+        f.write(f"# gsw.p_from_z from python3-gsw {gsw.__version__} (Debian) by generate_gsw_fixture.py\n")
+        f.write("# units: depth m (positive down; gsw's z = -depth), latitude degrees, p dbar\n")
+        f.write("depth,latitude,p\n")
+        for lat in (0.0, 15.0, 30.0, 45.0, 60.0):
+            for depth, p in zip(depths, gsw.p_from_z(-depths, lat)):
+                f.write(f"{float(depth)!r},{lat!r},{abs(float(p))!r}\n")
 
 
 if __name__ == "__main__":
