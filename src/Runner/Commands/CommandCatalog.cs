@@ -16,5 +16,6 @@ public static class CommandCatalog
     public static IEnumerable<IRunnerCommand> All() =>
     [
         new InsolationCommand(),
+        new DensityMatchCommand(),
     ];
 }

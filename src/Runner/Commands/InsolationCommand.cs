@@ -254,7 +254,7 @@ public sealed class InsolationCommand : IRunnerCommand
             new ColumnSpec("climatic_precession", "1", "climatic precession index e·sin ϖ"),
         ], meta);
         for (int i = 0; i < ages.Length; i++)
-            w.AppendRow([ages[i], IOrbitSource.YearsFromAgeKa(ages[i]), el[i].Eccentricity, el[i].ObliquityDeg, Angles.Normalize360(el[i].PerihelionDeg), el[i].ClimaticPrecession]);
+            w.AppendRow([ages[i], IOrbitSource.YearsFromAgeKa(ages[i]), el[i].Eccentricity, el[i].ObliquityDeg, ((el[i].PerihelionDeg % 360.0) + 360.0) % 360.0, el[i].ClimaticPrecession]);
         w.Complete();
     }
 

@@ -38,22 +38,41 @@ internal static class InsolationFigures
             Figures.Save(plt, path);
             return;
         }
-        // Rows run north (top) to south; columns young (left) to old.
+        // Rows run north (top) to south; columns young (left) to old. The map shows the anomaly
+        // from each latitude's mean over the ages, since the latitude profile would otherwise hide
+        // the orbital signal; a diverging colour scale centred on zero.
         var order = Enumerable.Range(0, nL).OrderByDescending(j => lats[j]).ToArray();
         var grid = new double[nL, ages.Length];
+        double maxAbs = 0;
         for (int r = 0; r < nL; r++)
+        {
+            double mean = 0;
+            for (int i = 0; i < ages.Length; i++) mean += values[(i * nL + order[r]) * per + pick];
+            mean /= ages.Length;
             for (int i = 0; i < ages.Length; i++)
-                grid[r, i] = values[(i * nL + order[r]) * per + pick];
-        var map = Figures.NewPlot($"Insolation: {what}", "age (ka before 1950)", "latitude (°N)");
+            {
+                grid[r, i] = values[(i * nL + order[r]) * per + pick] - mean;
+                maxAbs = Math.Max(maxAbs, Math.Abs(grid[r, i]));
+            }
+        }
+        var map = Figures.NewPlot($"Insolation: {what}, anomaly from each latitude's mean over {ages[0]:G6}–{ages[^1]:G6} ka", "age (ka before 1950)", "latitude (°N)");
         var hm = map.Add.Heatmap(grid);
-        hm.Colormap = new ScottPlot.Colormaps.Viridis();
+        hm.Colormap = Diverging;
+        hm.ManualRange = new ScottPlot.Range(-Math.Max(maxAbs, 1e-12), Math.Max(maxAbs, 1e-12));
         double dA = ages.Length > 1 ? (ages[^1] - ages[0]) / (ages.Length - 1) : 1, dL = (lats.Max() - lats.Min()) / Math.Max(1, nL - 1);
         hm.Extent = new CoordinateRect(ages[0] - dA / 2, ages[^1] + dA / 2, lats.Min() - dL / 2, lats.Max() + dL / 2);
+        map.Axes.SetLimits(ages[0] - dA / 2, ages[^1] + dA / 2, lats.Min() - dL / 2, lats.Max() + dL / 2);
         var bar = map.Add.ColorBar(hm);
-        bar.Label = $"{what} ({unit})";
+        bar.Label = $"{what} anomaly ({unit})";
         bar.LabelStyle.FontSize = 14;
         Figures.Save(map, path);
     }
+
+    /// <summary>Blue–white–red, for anomalies.</summary>
+    private static readonly IColormap Diverging = new ScottPlot.Colormaps.CustomInterpolated(
+    [
+        Color.FromHex("#1b4f72"), Color.FromHex("#5dade2"), Color.FromHex("#f8f9f9"), Color.FromHex("#ec7063"), Color.FromHex("#922b21"),
+    ]);
 
     /// <summary>Latitude × day-of-year map at one epoch.</summary>
     public static void SeasonMap(string path, double[] lats, double[] days, double[,] values, double ageKa)
@@ -67,6 +86,7 @@ internal static class InsolationFigures
         var hm = plt.Add.Heatmap(grid);
         hm.Colormap = new ScottPlot.Colormaps.Viridis();
         hm.Extent = new CoordinateRect(days[0] - 0.5, days[^1] + 0.5, lats[0] - 0.5, lats[^1] + 0.5);
+        plt.Axes.SetLimits(days[0] - 0.5, days[^1] + 0.5, lats[0] - 0.5, lats[^1] + 0.5);
         var bar = plt.Add.ColorBar(hm);
         bar.Label = "insolation (W m⁻²)";
         bar.LabelStyle.FontSize = 14;
@@ -93,6 +113,7 @@ internal static class InsolationFigures
             s.MarkerSize = ages.Length > 60 ? 0 : 4;
             s.LineWidth = 1.8f;
             s.Color = Figures.Series(k);
+            p.Axes.SetLimitsX(ages.Min(), ages.Max() + (ages.Length == 1 ? 1 : 0));
         }
         var tmp = path + ".partial.png";
         mp.SavePng(tmp, Figures.Width, 900);
