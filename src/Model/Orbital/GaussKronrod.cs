@@ -1,7 +1,7 @@
 namespace Thermostrat.Model.Orbital;
 
-/// <summary>An integrand for <see cref="GaussKronrod"/>; a struct so that calls are inlined and allocate nothing.</summary>
-internal interface IIntegrand
+/// <summary>A real function of one variable (an integrand or an equation); a struct so that calls are inlined and allocate nothing.</summary>
+internal interface IRealFunction
 {
     double Evaluate(double x);
 }
@@ -43,7 +43,7 @@ internal static class GaussKronrod
     private const int MaxDepth = 40;
 
     /// <summary>One 15-point Kronrod estimate on [a, b] and its difference from the 7-point Gauss estimate.</summary>
-    public static double Rule<TF>(in TF f, double a, double b, out double errorEstimate) where TF : struct, IIntegrand
+    public static double Rule<TF>(in TF f, double a, double b, out double errorEstimate) where TF : struct, IRealFunction
     {
         double center = 0.5 * (a + b), half = 0.5 * (b - a);
         double fc = f.Evaluate(center);
@@ -64,7 +64,7 @@ internal static class GaussKronrod
     /// ∫ f over [a, b] to about max(<paramref name="absoluteTolerance"/>, <paramref name="relativeTolerance"/>·|I|).
     /// </summary>
     public static double Integrate<TF>(in TF f, double a, double b, double absoluteTolerance, double relativeTolerance = DefaultRelativeTolerance)
-        where TF : struct, IIntegrand
+        where TF : struct, IRealFunction
     {
         if (b == a) return 0.0;
         double whole = Rule(f, a, b, out double err);
@@ -73,7 +73,7 @@ internal static class GaussKronrod
         return Refine(f, a, b, tolerance, 0);
     }
 
-    private static double Refine<TF>(in TF f, double a, double b, double tolerance, int depth) where TF : struct, IIntegrand
+    private static double Refine<TF>(in TF f, double a, double b, double tolerance, int depth) where TF : struct, IRealFunction
     {
         double mid = 0.5 * (a + b);
         double left = Rule(f, a, mid, out double errLeft);

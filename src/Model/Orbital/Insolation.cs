@@ -59,8 +59,11 @@ public static class Insolation
     /// <summary>Bisection steps locating a crossing longitude (2π·2⁻⁵⁵ is below double precision).</summary>
     private const int CrossingBisections = 55;
 
-    /// <summary>Relative accuracy of the caloric threshold (W/m²).</summary>
+    /// <summary>Accuracy of the caloric threshold relative to the maximum daily insolation.</summary>
     private const double CaloricThresholdTolerance = 1e-12;
+
+    /// <summary>Accuracy (rad) of a threshold-crossing longitude found by Brent's method (about 1e-6 s of time).</summary>
+    private const double CrossingTolerance = 1e-13;
 
     // ---------------------------------------------------------------- daily values
 
@@ -200,27 +203,25 @@ public static class Insolation
         double halfYearDays = 0.5 * SolarCalendar.YearLengthDays;
         double annualEnergy = AnnualMeanScale(ev) * AnnualGeometry(curve.Latitude, ev.SinObliquity) * SolarCalendar.SecondsPerYear;
 
-        double lo = 0.0, hi = curve.MaxSample;
-        (double energy, double days) = curve.Above(lo);
+        double threshold;
+        (double energy, double days) = curve.Above(0.0);
         if (days > halfYearDays)
         {
-            // Bisection on the threshold: time above lo exceeds half a year, time above hi does not.
-            while (hi - lo > CaloricThresholdTolerance * hi)
-            {
-                double mid = 0.5 * (lo + hi);
-                if (curve.Above(mid).DurationDays > halfYearDays) lo = mid; else hi = mid;
-            }
-            (energy, days) = curve.Above(hi);
+            // The threshold q* at which the time above it is half a year: T(q) − T/2 changes sign on [0, max Q].
+            var excess = new HalfYearExcess(curve, halfYearDays);
+            double top = curve.MaxSample;
+            threshold = BrentRoot.Solve(excess, 0.0, top, days - halfYearDays, excess.Evaluate(top), CaloricThresholdTolerance * top);
+            (energy, days) = curve.Above(threshold);
         }
         else
         {
-            hi = 0.0; // Q > 0 for at most half a year (long polar night): the whole sunlit part is summer.
+            threshold = 0.0; // Q > 0 for at most half a year (long polar night): the whole sunlit part is summer.
         }
         // Ties at the threshold (a level stretch of Q, e.g. a constant Q) fill the half-year at Q = q*.
-        double summerEnergy = energy + hi * (halfYearDays - days) * SolarCalendar.SecondsPerDay;
+        double summerEnergy = energy + threshold * (halfYearDays - days) * SolarCalendar.SecondsPerDay;
         double winterEnergy = Math.Max(annualEnergy - summerEnergy, 0.0);
         double halfYearSeconds = 0.5 * SolarCalendar.SecondsPerYear;
-        return new CaloricHalfYearInsolation(summerEnergy / halfYearSeconds, winterEnergy / halfYearSeconds, summerEnergy / 1e9, winterEnergy / 1e9, hi);
+        return new CaloricHalfYearInsolation(summerEnergy / halfYearSeconds, winterEnergy / halfYearSeconds, summerEnergy / 1e9, winterEnergy / 1e9, threshold);
     }
 
     /// <summary>
@@ -368,7 +369,7 @@ public static class Insolation
         return total;
     }
 
-    private static double IntegratePieces<TF>(in TF f, double a, double b, double tol) where TF : struct, IIntegrand
+    private static double IntegratePieces<TF>(in TF f, double a, double b, double tol) where TF : struct, IRealFunction
     {
         double total = 0.0;
         double quarter = 0.5 * Math.PI;
@@ -378,7 +379,7 @@ public static class Insolation
     }
 
     /// <summary>∫ f over [a, b] split at the breakpoints p1 and p2 where they fall inside.</summary>
-    private static double IntegrateWithBreaks<TF>(in TF f, double a, double b, double p1, double p2, double tol) where TF : struct, IIntegrand
+    private static double IntegrateWithBreaks<TF>(in TF f, double a, double b, double p1, double p2, double tol) where TF : struct, IRealFunction
     {
         if (p2 < p1) (p1, p2) = (p2, p1);
         double total = 0.0, start = a;
@@ -388,7 +389,7 @@ public static class Insolation
     }
 
     /// <summary>F(λ) at fixed latitude.</summary>
-    private readonly struct DailyGeometryOfLongitude(double sinLat, double cosLat, double sinObliquity) : IIntegrand
+    private readonly struct DailyGeometryOfLongitude(double sinLat, double cosLat, double sinObliquity) : IRealFunction
     {
         public double Evaluate(double lambda)
         {
@@ -398,16 +399,22 @@ public static class Insolation
     }
 
     /// <summary>F(μ = sin φ) at fixed declination.</summary>
-    private readonly struct DailyGeometryOfMu(double sinDelta, double cosDelta) : IIntegrand
+    private readonly struct DailyGeometryOfMu(double sinDelta, double cosDelta) : IRealFunction
     {
         public double Evaluate(double mu) =>
             InsolationEvaluator.DailyGeometry(mu, Math.Sqrt(Math.Max(0.0, 1.0 - mu * mu)), sinDelta, cosDelta);
     }
 
     /// <summary>∫F dλ over a year as a function of μ = sin φ.</summary>
-    private readonly struct AnnualGeometryOfMu(double sinObliquity) : IIntegrand
+    private readonly struct AnnualGeometryOfMu(double sinObliquity) : IRealFunction
     {
         public double Evaluate(double mu) => AnnualGeometry(LatitudeTrig.FromSine(mu), sinObliquity);
+    }
+
+    /// <summary>Time above a threshold minus half a year (days), decreasing in the threshold.</summary>
+    private readonly struct HalfYearExcess(ThresholdCurve curve, double halfYearDays) : IRealFunction
+    {
+        public double Evaluate(double threshold) => curve.Above(threshold, withEnergy: false).DurationDays - halfYearDays;
     }
 
     /// <summary>Daily insolation along the orbit at one latitude, sampled in true longitude, for threshold sets {Q &gt; τ}.</summary>
@@ -436,8 +443,8 @@ public static class Insolation
 
         private double Q(double lambda) => _ev.DailyMeanRad(Latitude.Sin, Latitude.Cos, lambda);
 
-        /// <summary>Energy (J/m²) received and days spent while Q &gt; τ.</summary>
-        public (double EnergyJm2, double DurationDays) Above(double threshold)
+        /// <summary>Energy (J/m²) received (0 unless <paramref name="withEnergy"/>) and days spent while Q &gt; τ.</summary>
+        public (double EnergyJm2, double DurationDays) Above(double threshold, bool withEnergy = true)
         {
             int n = ThresholdSamples;
             int firstRise = -1;
@@ -450,7 +457,7 @@ public static class Insolation
                 // No crossing on the grid: above all year or never.
                 bool allAbove = _samples[0] > threshold;
                 if (!allAbove) return (0.0, 0.0);
-                double all = _ev.EnergyScale * IntegrateOverLongitude(Latitude, _ev.SinObliquity, 0.0, Angles.TwoPi);
+                double all = withEnergy ? _ev.EnergyScale * IntegrateOverLongitude(Latitude, _ev.SinObliquity, 0.0, Angles.TwoPi) : 0.0;
                 return (all, SolarCalendar.YearLengthDays);
             }
             double energy = 0.0, days = 0.0;
@@ -467,7 +474,7 @@ public static class Insolation
                     double fall = Crossing(i, threshold);
                     double unwrappedFall = fall + (firstRise + k >= n ? Angles.TwoPi : 0.0);
                     if (unwrappedFall < rise) unwrappedFall += Angles.TwoPi;
-                    energy += _ev.EnergyScale * IntegrateOverLongitude(Latitude, _ev.SinObliquity, rise, unwrappedFall);
+                    if (withEnergy) energy += _ev.EnergyScale * IntegrateOverLongitude(Latitude, _ev.SinObliquity, rise, unwrappedFall);
                     days += _ev.DurationDays(rise, unwrappedFall);
                 }
                 else if (isRise)
@@ -478,17 +485,28 @@ public static class Insolation
             return (energy, days);
         }
 
-        /// <summary>The longitude in [λ_i, λ_{i+1}] where Q crosses the threshold, by bisection on the predicate Q &gt; τ.</summary>
+        /// <summary>
+        /// The longitude in [λ_i, λ_{i+1}] where Q crosses the threshold: Brent's method on Q − τ for τ &gt; 0;
+        /// for τ = 0 (the edge of a polar night, where Q − τ vanishes on a whole interval) bisection on the predicate Q &gt; 0.
+        /// </summary>
         private double Crossing(int i, double threshold)
         {
             double a = i * _step, b = (i + 1) * _step;
-            bool aboveAtA = _samples[i] > threshold;
+            double qa = _samples[i], qb = _samples[(i + 1) % ThresholdSamples];
+            if (threshold > 0.0)
+                return BrentRoot.Solve(new Excess(this, threshold), a, b, qa - threshold, qb - threshold, CrossingTolerance);
+            bool aboveAtA = qa > threshold;
             for (int k = 0; k < CrossingBisections; k++)
             {
                 double mid = 0.5 * (a + b);
                 if ((Q(mid) > threshold) == aboveAtA) a = mid; else b = mid;
             }
             return 0.5 * (a + b);
+        }
+
+        private readonly struct Excess(ThresholdCurve curve, double threshold) : IRealFunction
+        {
+            public double Evaluate(double lambda) => curve.Q(lambda) - threshold;
         }
     }
 }

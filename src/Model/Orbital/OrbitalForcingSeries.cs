@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.ExceptionServices;
 
 namespace Thermostrat.Model.Orbital;
 
@@ -62,8 +63,22 @@ public sealed class OrbitalForcingSeries
                 values[c][k] = row[c];
             }
         }
-        if (parallel) Parallel.For(0, intervals + 1, Node);
-        else for (int k = 0; k <= intervals; k++) Node(k);
+        if (parallel)
+        {
+            try
+            {
+                Parallel.For(0, intervals + 1, Node);
+            }
+            catch (AggregateException ex) when (ex.InnerExceptions.Count > 0)
+            {
+                // Report the first failure as the sequential loop would, not wrapped.
+                ExceptionDispatchInfo.Capture(ex.InnerExceptions[0]).Throw();
+            }
+        }
+        else
+        {
+            for (int k = 0; k <= intervals; k++) Node(k);
+        }
 
         _spline = new CubicSpline(t, values);
         _slack = 1e-12 * Math.Max(1.0, Math.Max(Math.Abs(tStartYears), Math.Abs(tEndYears)));
