@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace Thermostrat.Model.Seawater;
 
@@ -16,7 +17,9 @@ namespace Thermostrat.Model.Seawater;
 /// <para>The coefficients α and β below are exact derivatives of this ρ with respect to the
 /// native variables t68 and S; see <see cref="Eos80EquationOfState"/> for the box model's
 /// variables. Every method is generic over the number type. At S = 0 the S^{3/2} terms are
-/// taken as exactly zero (with zero derivative) so that dual numbers stay finite.</para>
+/// taken as exactly zero with zero derivative, so that dual numbers stay finite: this is exact for
+/// ρ and its first derivatives; ∂β/∂S itself is unbounded as S → 0, and a dual number seeded in S
+/// at exactly S = 0 gets the finite remainder without the unbounded term.</para>
 /// </remarks>
 public static class Eos80
 {
@@ -27,6 +30,7 @@ public static class Eos80
 
     /// <summary>Density of pure water (SMOW) at one standard atmosphere, kg/m³ (Bigg 1967).</summary>
     /// <param name="temperature68">Temperature, IPTS-68 °C.</param>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public static T PureWaterDensity<T>(T temperature68) where T : struct, IFloatingPointIeee754<T>
     {
         T t = temperature68;
@@ -101,72 +105,95 @@ public static class Eos80
     }
 
     // ---- Coefficients (UNESCO 1981; Fofonoff and Millard 1983, section 3) and their t-derivatives ----
+    // (Inlined explicitly: there are too many for the JIT's default inlining budget.)
 
     private const double D0 = 4.8314e-4;
     private const double J0 = 1.91075e-4;
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T PureWaterDensityT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(6.793952e-2) + t * (C<T>(2 * -9.095290e-3) + t * (C<T>(3 * 1.001685e-4)
             + t * (C<T>(4 * -1.120083e-6) + t * C<T>(5 * 6.536332e-9))));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefB<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(8.24493e-1) + t * (C<T>(-4.0899e-3) + t * (C<T>(7.6438e-5) + t * (C<T>(-8.2467e-7) + t * C<T>(5.3875e-9))));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefBT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-4.0899e-3) + t * (C<T>(2 * 7.6438e-5) + t * (C<T>(3 * -8.2467e-7) + t * C<T>(4 * 5.3875e-9)));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefC<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-5.72466e-3) + t * (C<T>(1.0227e-4) + t * C<T>(-1.6546e-6));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefCT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(1.0227e-4) + t * C<T>(2 * -1.6546e-6);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T Kw<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(19652.21) + t * (C<T>(148.4206) + t * (C<T>(-2.327105) + t * (C<T>(1.360477e-2) + t * C<T>(-5.155288e-5))));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T KwT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(148.4206) + t * (C<T>(2 * -2.327105) + t * (C<T>(3 * 1.360477e-2) + t * C<T>(4 * -5.155288e-5)));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefF<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(54.6746) + t * (C<T>(-0.603459) + t * (C<T>(1.09987e-2) + t * C<T>(-6.1670e-5)));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefFT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-0.603459) + t * (C<T>(2 * 1.09987e-2) + t * C<T>(3 * -6.1670e-5));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefG<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(7.944e-2) + t * (C<T>(1.6483e-2) + t * C<T>(-5.3009e-4));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefGT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(1.6483e-2) + t * C<T>(2 * -5.3009e-4);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T Aw<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(3.239908) + t * (C<T>(1.43713e-3) + t * (C<T>(1.16092e-4) + t * C<T>(-5.77905e-7)));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T AwT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(1.43713e-3) + t * (C<T>(2 * 1.16092e-4) + t * C<T>(3 * -5.77905e-7));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefI<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(2.2838e-3) + t * (C<T>(-1.0981e-5) + t * C<T>(-1.6078e-6));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefIT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-1.0981e-5) + t * C<T>(2 * -1.6078e-6);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T Bw<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(8.50935e-5) + t * (C<T>(-6.12293e-6) + t * C<T>(5.2787e-8));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T BwT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-6.12293e-6) + t * C<T>(2 * 5.2787e-8);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefM<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(-9.9348e-7) + t * (C<T>(2.0816e-8) + t * C<T>(9.1697e-10));
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T CoefMT<T>(T t) where T : struct, IFloatingPointIeee754<T> =>
         C<T>(2.0816e-8) + t * C<T>(2 * 9.1697e-10);
 
     /// <summary>√S, with √0 taken as an exact zero (no infinite derivative for dual numbers).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T SqrtOrZero<T>(T s) where T : struct, IFloatingPointIeee754<T> => T.IsZero(s) ? T.Zero : T.Sqrt(s);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T S15<T>(T s) where T : struct, IFloatingPointIeee754<T> => s * SqrtOrZero(s);
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static T C<T>(double value) where T : struct, IFloatingPointIeee754<T> => T.CreateTruncating(value);
 }
