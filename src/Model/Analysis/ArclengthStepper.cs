@@ -88,9 +88,11 @@ internal sealed class ArclengthStepper
     /// <summary>
     /// Newton's method on G(u) = 0, rowᵀu = c from the guess in <paramref name="u"/> (overwritten).
     /// Fails if it does not converge in the iteration limit or ends farther than
-    /// <paramref name="maxDistance"/> (weighted) from the guess.
+    /// <paramref name="maxDistance"/> (weighted) from the guess. At least <paramref name="minIterations"/>
+    /// Newton steps are taken even if the guess already meets the tolerance, so that accepted points
+    /// are polished to rounding rather than left anywhere within the tolerance.
     /// </summary>
-    public CorrectorOutcome Correct(Span<double> u, ReadOnlySpan<double> row, double c, double maxDistance)
+    public CorrectorOutcome Correct(Span<double> u, ReadOnlySpan<double> row, double c, double maxDistance, int minIterations = 1)
     {
         int e = M - 1;
         u.CopyTo(_start);
@@ -99,7 +101,7 @@ internal sealed class ArclengthStepper
             if (!Evaluate(u)) return new CorrectorOutcome(false, true, double.NaN, it);
             double residual = Vec.NormInf(_g.AsSpan(0, e));
             double constraint = Vec.Dot(row, u) - c;
-            if (residual <= Tolerance && Math.Abs(constraint) <= Tolerance * (1 + Math.Abs(c)))
+            if (it >= minIterations && residual <= Tolerance && Math.Abs(constraint) <= Tolerance * (1 + Math.Abs(c)))
             {
                 bool near = Distance(u, _start) <= maxDistance;
                 return new CorrectorOutcome(near, false, residual, it);

@@ -263,14 +263,14 @@ internal abstract class CurveTracer
             else { hi = mid; k.CopyTo(kHi, 0); }
         }
         if (1 - Math.Abs(Stepper.Dot(kLo, kHi)) < JumpThreshold) return null;
-        return LocateCorner(prev, kLo, kHi, hi, hiKnownOnSideB: false);
+        return LocateCorner(prev, kLo, kHi, hi);
     }
 
     /// <summary>
     /// Bisection on the curve (points at projected distance σ along prev.T) for where the kernel switches
     /// from <paramref name="kA"/>'s side to <paramref name="kB"/>'s; returns the corner node or null.
     /// </summary>
-    protected CurveNode? LocateCorner(CurveNode prev, double[] kA, double[] kB, double sigmaHi, bool hiKnownOnSideB)
+    protected CurveNode? LocateCorner(CurveNode prev, double[] kA, double[] kB, double sigmaHi)
     {
         var row = new double[M];
         Stepper.WeightedRow(prev.T, row);
@@ -283,34 +283,50 @@ internal abstract class CurveTracer
         double width = BisectionWidth * (1 + Stepper.Norm(prev.U));
         int iterations = 0;
 
-        // Side test of the point at projected distance σ: A if it converges and its kernel is closer to kA.
+        // Side test of the point at projected distance σ, corrected from the nearest accepted side-A point:
+        // 0 if it converges to a point whose kernel is closer to kA (side A), else 1. Where both smooth
+        // pieces cross the hyperplane, a converged side-B point says nothing about σ, so the end of side A
+        // is confirmed only from a predictor close to the last side-A point.
         int Side(double sigma)
         {
             for (int i = 0; i < M; i++) u[i] = zLo[i] + (sigma - lo) * tLo[i];
-            var outcome = Stepper.Correct(u, row, c0 + sigma, 4 * (sigma - lo) + width);
+            var outcome = Stepper.Correct(u, row, c0 + sigma, 4 * (sigma - lo) + width, minIterations: 1);
             if (!outcome.Converged) return 1;
             if (!Stepper.Tangent(u, row, k, out _, evaluate: false)) return 1;
             return Math.Abs(Stepper.Dot(k, kA)) >= Math.Abs(Stepper.Dot(k, kB)) ? 0 : 1;
         }
 
-        if (!hiKnownOnSideB)
+        void AcceptLo(double sigma)
         {
-            for (int grow = 0; grow < 6 && Side(hi) == 0; grow++)
-            {
-                u.CopyTo(zLo, 0); k.CopyTo(tLo, 0); lo = hi; hi *= 2;
-            }
+            u.CopyTo(zLo, 0);
+            if (Stepper.Dot(k, tLo) < 0) Vec.Scale(k, -1);
+            k.CopyTo(tLo, 0);
+            lo = sigma;
         }
-        for (; iterations < 200 && hi - lo > width; iterations++)
+
+        for (int outer = 0; outer < 60 && iterations < 400; outer++)
         {
-            double mid = 0.5 * (lo + hi);
-            if (Side(mid) == 0)
+            while (hi - lo > width && iterations < 400)
             {
-                u.CopyTo(zLo, 0);
-                if (Stepper.Dot(k, tLo) < 0) Vec.Scale(k, -1);
-                k.CopyTo(tLo, 0);
-                lo = mid;
+                iterations++;
+                double mid = 0.5 * (lo + hi);
+                if (Side(mid) == 0) AcceptLo(mid);
+                else hi = mid;
             }
-            else hi = mid;
+            iterations++;
+            if (Side(hi) != 0) break;
+            AcceptLo(hi);
+            // Side A goes on beyond hi: search forward by doubling from the last side-A point.
+            double d = 2 * width;
+            while (iterations < 400 && lo < 4 * sigmaHi + width)
+            {
+                iterations++;
+                if (Side(lo + d) != 0) break;
+                AcceptLo(lo + d);
+                d *= 2;
+            }
+            if (lo >= 4 * sigmaHi + width) return null;
+            hi = lo + d;
         }
         if (lo == 0) return null;
         // Outgoing kernel just beyond the corner along the incoming tangent (on the other side of the switch).

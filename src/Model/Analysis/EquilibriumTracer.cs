@@ -162,7 +162,7 @@ internal sealed class EquilibriumTracer : CurveTracer
         var row = new double[_n + 1];
         Stepper.WeightedRow(a.T, row);
         double sigma = Vec.Dot(row, b.U) - Vec.Dot(row, a.U);
-        var corner = sigma > 0 ? LocateCorner(a, a.T, b.TIn, sigma, hiKnownOnSideB: true) : null;
+        var corner = sigma > 0 ? LocateCorner(a, a.T, b.TIn, sigma) : null;
         if (corner is not null && corner.Corner == SpecialPointKind.NonSmoothTurn)
             return Make(SpecialPointKind.NonSmoothTurn, corner.U, corner.CornerResidual, true, corner.CornerIterations,
                 a.Arclength + direction * Stepper.Distance(corner.U, a.U),
