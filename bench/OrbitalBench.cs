@@ -97,12 +97,12 @@ public static class OrbitalBench
         {
             var buffer = new double[grid.Count];
             for (int a = 0; a < ages; a++) Epoch(a, buffer);
-        }, samples: 3);
+        }, samples: 5);
         double checksumSerial = sums.Sum();
         double parallel = context.MedianSeconds(() =>
         {
             Parallel.For(0, ages, () => new double[grid.Count], (a, _, buffer) => { Epoch(a, buffer); return buffer; }, _ => { });
-        }, samples: 3);
+        }, samples: 5);
         if (sums.Sum() != checksumSerial) throw new InvalidOperationException("parallel table differs from the serial table");
         string label = $"{ages} ages × 181 latitudes × 365 days ({values / 1e6:F1} M values)";
         context.Report($"full table, one core: {label}", serial, "s");

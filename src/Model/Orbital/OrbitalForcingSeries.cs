@@ -15,6 +15,7 @@ public sealed class OrbitalForcingSeries
 {
     private readonly CubicSpline _spline;
     private readonly double _slack;
+    private readonly int _channels;
 
     /// <summary>Builds a multi-channel series.</summary>
     /// <param name="orbit">Orbit source (its <see cref="IOrbitSource.CheckRange"/> is applied; warnings land in <see cref="Warnings"/>).</param>
@@ -81,6 +82,7 @@ public sealed class OrbitalForcingSeries
         }
 
         _spline = new CubicSpline(t, values);
+        _channels = channels;
         _slack = 1e-12 * Math.Max(1.0, Math.Max(Math.Abs(tStartYears), Math.Abs(tEndYears)));
     }
 
@@ -117,8 +119,8 @@ public sealed class OrbitalForcingSeries
     public double ValueAt(double yearsSince1950, int channel = 0)
     {
         CheckTime(yearsSince1950);
-        if ((uint)channel >= (uint)ChannelNames.Count)
-            throw new ArgumentOutOfRangeException(nameof(channel), channel, $"channel = {channel} is not allowed; this series has channels 0 to {ChannelNames.Count - 1}.");
+        if ((uint)channel >= (uint)_channels)
+            throw new ArgumentOutOfRangeException(nameof(channel), channel, $"channel = {channel} is not allowed; this series has channels 0 to {_channels - 1}.");
         return _spline.Evaluate(yearsSince1950, channel);
     }
 
@@ -126,8 +128,8 @@ public sealed class OrbitalForcingSeries
     public void ValuesAt(double yearsSince1950, Span<double> destination)
     {
         CheckTime(yearsSince1950);
-        if (destination.Length < ChannelNames.Count)
-            throw new ArgumentException($"destination has length {destination.Length}; this series has {ChannelNames.Count} channels.", nameof(destination));
+        if (destination.Length < _channels)
+            throw new ArgumentException($"destination has length {destination.Length}; this series has {_channels} channels.", nameof(destination));
         _spline.Evaluate(yearsSince1950, destination);
     }
 
