@@ -17,5 +17,6 @@ public static class CommandCatalog
     [
         new InsolationCommand(),
         new DensityMatchCommand(),
+        new BranchCommand(),
     ];
 }

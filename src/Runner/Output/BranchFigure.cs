@@ -1,0 +1,107 @@
+using ScottPlot;
+using Thermostrat.Model.Analysis;
+using Thermostrat.Runner.Models;
+
+namespace Thermostrat.Runner.Output;
+
+/// <summary>
+/// Bifurcation diagram: stable equilibria as solid lines, unstable (and saddle) ones dashed;
+/// special points marked with our own symbols and labelled — F fold (filled diamond), H Hopf
+/// (open circle), B branch point (cross), C non-smooth corner (filled triangle), S the start
+/// (small square).
+/// </summary>
+internal static class BranchFigure
+{
+    /// <summary>Labels of the special points (End excluded), numbered within each kind: F1, F2, H1, C1, ...</summary>
+    public static List<(SpecialPoint Point, string Label)> Labelled(IEnumerable<SpecialPoint> specials)
+    {
+        var counts = new Dictionary<string, int>();
+        var result = new List<(SpecialPoint, string)>();
+        foreach (var s in specials.Where(s => s.Kind != SpecialPointKind.End))
+        {
+            string prefix = s.Kind switch
+            {
+                SpecialPointKind.Fold => "F",
+                SpecialPointKind.Hopf => "H",
+                SpecialPointKind.BranchPoint => "B",
+                SpecialPointKind.NonSmoothTurn or SpecialPointKind.NonSmoothKink => "C",
+                SpecialPointKind.Cusp => "K",
+                SpecialPointKind.BogdanovTakens => "BT",
+                _ => "E",
+            };
+            counts[prefix] = counts.GetValueOrDefault(prefix) + 1;
+            result.Add((s, prefix + counts[prefix]));
+        }
+        return result;
+    }
+
+    private static MarkerShape Symbol(SpecialPointKind k) => k switch
+    {
+        SpecialPointKind.Fold => MarkerShape.FilledDiamond,
+        SpecialPointKind.Hopf => MarkerShape.OpenCircle,
+        SpecialPointKind.BranchPoint => MarkerShape.Cross,
+        SpecialPointKind.NonSmoothTurn or SpecialPointKind.NonSmoothKink => MarkerShape.FilledTriangleUp,
+        SpecialPointKind.Cusp => MarkerShape.FilledSquare,
+        _ => MarkerShape.OpenSquare,
+    };
+
+    public static void Draw(string path, IModelHost host, Branch branch, double[] parameters, string show, string parameterName)
+    {
+        var cols = host.StateColumns.Concat(host.DiagnosticColumns).ToList();
+        int col = cols.FindIndex(c => c.Name == show);
+        int nState = host.StateColumns.Count;
+        var p = (double[])parameters.Clone();
+        var diag = new double[host.DiagnosticColumns.Count];
+        double Y(IReadOnlyList<double> state, double param)
+        {
+            if (col < nState) return state[col];
+            p[branch.ParameterIndex] = param;
+            host.Diagnostics(0, state.ToArray(), p, diag);
+            return diag[col - nState];
+        }
+        var unit = cols[col].Unit;
+        var plt = Figures.NewPlot($"{host.Name}: equilibria against {parameterName}", parameterName, string.IsNullOrEmpty(unit) || unit == "1" ? show : $"{show} ({unit})");
+
+        // Split into runs of equal stability; each run drawn solid (stable) or dashed.
+        var pts = branch.Points;
+        int runStart = 0;
+        bool stableLegend = false, unstableLegend = false;
+        for (int i = 1; i <= pts.Count; i++)
+        {
+            bool boundary = i == pts.Count || (pts[i].Stability == StabilityType.Stable) != (pts[i - 1].Stability == StabilityType.Stable);
+            if (!boundary) continue;
+            int end = Math.Min(i, pts.Count - 1); // share the boundary point so the curve is continuous
+            var xs = new double[end - runStart + 1];
+            var ys = new double[xs.Length];
+            for (int j = runStart; j <= end; j++) { xs[j - runStart] = pts[j].Parameter; ys[j - runStart] = Y(pts[j].State, pts[j].Parameter); }
+            bool stable = pts[runStart].Stability == StabilityType.Stable;
+            var line = plt.Add.Scatter(xs, ys);
+            line.MarkerSize = 0;
+            line.LineWidth = stable ? 2.6f : 1.8f;
+            line.Color = stable ? Figures.Series(0) : Figures.Series(1);
+            line.LinePattern = stable ? LinePattern.Solid : LinePattern.Dashed;
+            if (stable && !stableLegend) { line.LegendText = "stable"; stableLegend = true; }
+            if (!stable && !unstableLegend) { line.LegendText = "unstable"; unstableLegend = true; }
+            runStart = i;
+        }
+        foreach (var (s, label) in Labelled(branch.SpecialPoints))
+        {
+            double y = Y(s.State, s.Parameter);
+            var m = plt.Add.Marker(s.Parameter, y, Symbol(s.Kind), 13, Colors.Black);
+            var t = plt.Add.Text(label, s.Parameter, y);
+            t.LabelFontSize = 14;
+            t.LabelBold = true;
+            t.OffsetX = 8;
+            t.OffsetY = -8;
+        }
+        if (branch.StartIndex >= 0 && branch.StartIndex < pts.Count)
+        {
+            var sp = pts[branch.StartIndex];
+            var m = plt.Add.Marker(sp.Parameter, Y(sp.State, sp.Parameter), MarkerShape.FilledSquare, 7, Figures.Series(6));
+            m.LegendText = "start";
+        }
+        plt.ShowLegend(Alignment.UpperRight);
+        plt.Legend.FontSize = 13;
+        Figures.Save(plt, path);
+    }
+}
