@@ -18,5 +18,6 @@ public static class CommandCatalog
         new InsolationCommand(),
         new DensityMatchCommand(),
         new BranchCommand(),
+        new BoundaryCommand(),
     ];
 }
