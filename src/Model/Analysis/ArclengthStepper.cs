@@ -14,7 +14,7 @@ internal sealed class ArclengthStepper
 {
     private readonly ExtendedSystem _sys;
     private readonly double[] _g, _jac, _mat, _rhs, _probe, _start;
-    private readonly DenseLu _lu;
+    private readonly LuFactorization _lu;
 
     public ArclengthStepper(ExtendedSystem system, double[] weights, double tolerance, int maxIterations)
     {
@@ -30,7 +30,7 @@ internal sealed class ArclengthStepper
         _rhs = new double[M];
         _probe = new double[M];
         _start = new double[M];
-        _lu = new DenseLu(M);
+        _lu = new LuFactorization(M);
     }
 
     public int M { get; }

@@ -192,7 +192,7 @@ internal sealed class EquilibriumTracer : CurveTracer
             bordered[i * (n + 1) + n] = fp[i];
         }
         for (int j = 0; j <= n; j++) bordered[n * (n + 1) + j] = t[j];
-        var lu = new DenseLu(n + 1);
+        var lu = new LuFactorization(n + 1);
         var y = new double[n + 1];
         for (int i = 0; i <= n; i++) y[i] = 1 + 0.1 * i;
         if (lu.Factor(bordered, n + 1))
@@ -264,7 +264,7 @@ internal sealed class EquilibriumTracer : CurveTracer
     {
         int m = 2 * n;
         var mat = new double[m * m];
-        var lu = new DenseLu(m);
+        var lu = new LuFactorization(m);
         for (int attempt = 0; attempt < 3; attempt++)
         {
             double shiftRe = mu + attempt * 1e-9 * (1 + Math.Abs(omega)), shiftIm = omega;

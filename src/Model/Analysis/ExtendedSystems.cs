@@ -82,7 +82,7 @@ internal sealed class EquilibriumSystem : ExtendedSystem
 internal sealed class FoldSystem : ExtendedSystem
 {
     private readonly double[] _j, _fp, _bordered, _v, _w, _hv, _fpv, _b, _c;
-    private readonly DenseLu _lu;
+    private readonly LuFactorization _lu;
 
     public FoldSystem(SystemDerivatives d, int[] free, ReadOnlySpan<double> rightNullGuess)
         : base(d, free, d.N + free.Length, d.N + 1)
@@ -96,7 +96,7 @@ internal sealed class FoldSystem : ExtendedSystem
         _fpv = new double[N];
         _b = new double[N];
         _c = new double[N];
-        _lu = new DenseLu(N + 1);
+        _lu = new LuFactorization(N + 1);
         rightNullGuess.CopyTo(_c);
         double norm = Vec.Norm2(_c);
         if (!(norm > 0)) { _c.AsSpan().Clear(); _c[0] = 1; norm = 1; }
@@ -403,7 +403,7 @@ internal static class ExtendedNewton
         int m = system.Unknowns;
         var g = new double[m];
         var jac = new double[m * m];
-        var lu = new DenseLu(m);
+        var lu = new LuFactorization(m);
         var best = new double[m];
         double bestResidual = double.PositiveInfinity;
         int converged = -1;

@@ -128,7 +128,7 @@ public static class SteadyState
         var dx = new double[n];
         var trial = new double[n];
         var fTrial = new double[n];
-        var lu = new DenseLu(n);
+        var lu = new LuFactorization(n);
         double damping = 1;
         int it = 0;
         d.Jacobian(x, jac, f);

@@ -16,6 +16,9 @@ public delegate void TransientIntegrator(IOdeSystem system, double startTime, do
 /// <summary>A scalar quantity computed from a state (for example a ventilation transport in Sv).</summary>
 public delegate double StateDiagnostic(ReadOnlySpan<double> state);
 
+/// <summary>A yes/no test of a state (for example "the overturning has collapsed").</summary>
+public delegate bool StatePredicate(ReadOnlySpan<double> state);
+
 /// <summary>
 /// Checks whether a state lies where the model is valid (for example inside an equation of
 /// state's range). Returns <see langword="null"/> when valid, otherwise a message saying what is out of range.
@@ -73,4 +76,32 @@ public sealed class ParameterOverrideSystem : IOdeSystem
         if (_rampIndex >= 0) p[_rampIndex] = T.CreateChecked(RampValue(t));
         _inner.Evaluate(t, y, (ReadOnlySpan<T>)p, dydt);
     }
+}
+
+/// <summary>Ready-made <see cref="TransientIntegrator"/>s.</summary>
+public static class TransientIntegrators
+{
+    /// <summary>
+    /// An integrator backed by the library's <see cref="Numerics.Ode.OdeSolver"/> with <paramref name="options"/>
+    /// (its output schedule is replaced by final-state-only; events are not used).
+    /// </summary>
+    public static TransientIntegrator FromSolver(Numerics.Ode.SolverOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        var final = options with { Output = Numerics.Ode.OutputTimes.FinalOnly };
+        return (system, startTime, endTime, state) =>
+        {
+            if (!(endTime > startTime)) return;
+            var result = Numerics.Ode.OdeSolver.Solve(system, startTime, state, endTime, final);
+            for (int i = 0; i < state.Length; i++) state[i] = result.FinalState[i];
+        };
+    }
+
+    /// <summary>The default: automatic non-stiff/stiff switching (Dormand–Prince 5(4) / RODAS4), relative tolerance 1e-8, absolute 1e-10.</summary>
+    public static TransientIntegrator Default { get; } = FromSolver(new Numerics.Ode.SolverOptions
+    {
+        Method = Numerics.Ode.OdeMethod.Auto,
+        RelativeTolerance = 1e-8,
+        AbsoluteTolerance = 1e-10,
+    });
 }

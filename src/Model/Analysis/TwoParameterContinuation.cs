@@ -147,7 +147,7 @@ public static class TwoParameterContinuation
     {
         var v = new double[n];
         for (int i = 0; i < n; i++) v[i] = 1 + 0.1 * i;
-        var lu = new DenseLu(n);
+        var lu = new LuFactorization(n);
         if (!lu.Factor(jac, n))
         {
             // Exactly singular: perturb the diagonal slightly and iterate.

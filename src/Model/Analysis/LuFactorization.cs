@@ -7,13 +7,13 @@ namespace Thermostrat.Model.Analysis;
 /// corrector and of the extended systems that locate special points.
 /// </summary>
 /// <remarks>Not thread-safe; one instance per solver.</remarks>
-internal sealed class DenseLu
+internal sealed class LuFactorization
 {
     private readonly double[] _lu;
     private readonly int[] _pivot;
     private int _pivotSign;
 
-    public DenseLu(int capacity)
+    public LuFactorization(int capacity)
     {
         if (capacity < 1) throw new ArgumentOutOfRangeException(nameof(capacity), capacity, "The matrix size must be at least 1.");
         Capacity = capacity;
