@@ -19,5 +19,6 @@ public static class CommandCatalog
         new DensityMatchCommand(),
         new BranchCommand(),
         new BoundaryCommand(),
+        new CollapseCommand(),
     ];
 }

@@ -96,7 +96,7 @@ public sealed class DensityMatchCommand : IRunnerCommand
         foreach (var r in results)
         {
             foreach (var (what, c) in new[] { ("salinity change", r.SalinityChange_gkg), ("temperature change", r.TemperatureChange_K) })
-                if (!c.Found) stdout.WriteLine($"  {r.EquationOfState}: no {what} in range: {c.NoSolutionReason}");
+                if (!c.Found) stdout.WriteLine($"  {r.EquationOfState}: no {what} in range: {c.NoSolutionReason?.Replace("the first water mass", "A").Replace("as the second", "as B")}");
         }
         stdout.WriteLine($"wrote {output.FinalPath}: density_match.parquet, ts_diagram.png ({figureEos}), run.json");
         return Cli.Ok;
