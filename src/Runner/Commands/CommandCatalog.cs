@@ -20,5 +20,6 @@ public static class CommandCatalog
         new BranchCommand(),
         new BoundaryCommand(),
         new CollapseCommand(),
+        new DescribeCommand(),
     ];
 }

@@ -35,8 +35,8 @@ public interface IModelHost
     /// <summary>A check that rejects states outside the model's valid range (null: none).</summary>
     StateValidator? Validity { get; }
 
-    /// <summary>The model's description (equations, variables, parameters, sources).</summary>
-    ModelDescription Description { get; }
+    /// <summary>The model's description (equations, variables, processes, parameters, sources).</summary>
+    ModelDocument Document { get; }
 
     /// <summary>The model's resolved settings, written into run.json and Parquet metadata.</summary>
     object ResolvedSettings { get; }

@@ -45,7 +45,9 @@ public sealed class ReferenceModelHost : IModelHost
     public IParametricSystem System { get; }
     public IReadOnlyList<ColumnSpec> StateColumns { get; }
     public IReadOnlyList<ColumnSpec> DiagnosticColumns { get; }
-    public ModelDescription Description => _described.Description;
+    private ModelDescription Description => _described.Description;
+
+    public ModelDocument Document => ModelDocument.From(Description, DiagnosticColumns.Select(c => (c.Name, c.Unit, c.Description)).ToList());
     public StateValidator? Validity => null;
     public IReadOnlyList<double>? StateScale => null;
 
