@@ -68,7 +68,7 @@ public class ContinuationNormalFormTests
         // Exact property: a linear change of coordinates plus decoupled decaying modes moves neither the fold nor its parameter.
         var sys = new MixedCoordinates(new SaddleNodeNormalForm(1), extra: 13);
         var start = sys.ToMixed([1.0]);
-        var branch = Continuation.Trace(sys, "mu", start, new ContinuationOptions { ParameterMin = -1, ParameterMax = 2 });
+        var branch = Continuation.Trace(sys, "mu", start, new ContinuationOptions { ParameterMin = -1, ParameterMax = 2, MaxStep = 0.3 });
         var fold = Assert.Single(branch.OfKind(SpecialPointKind.Fold));
         Assert.True(Math.Abs(fold.Parameter) <= 1e-10, $"fold at μ = {fold.Parameter:R}");
         Assert.True(Math.Abs(sys.ToInner(fold.State.AsSpan())[0]) <= 1e-8);
