@@ -121,8 +121,7 @@ public sealed class StommelDimensionalModel : IParametricSystem, IDescribedModel
     /// <inheritdoc />
     public void Evaluate<T>(double t, ReadOnlySpan<T> y, Span<T> dydt) where T : struct, IFloatingPointIeee754<T>
     {
-        Span<double> p = stackalloc double[Defaults.Length];
-        _p.CopyTo(p);
+        var p = _p;
         Rhs(y, dydt, T.CreateChecked(p[0]), T.CreateChecked(p[1]), T.CreateChecked(p[2]), T.CreateChecked(p[3]), T.CreateChecked(p[4]),
             T.CreateChecked(p[5]), T.CreateChecked(p[6]), T.CreateChecked(p[7]), T.CreateChecked(p[8]));
     }
