@@ -18,6 +18,8 @@ public class ContinuationNormalFormTests
         Assert.True(Math.Abs(folds[0].Parameter) <= 1e-10, $"fold at μ = {folds[0].Parameter:R}");
         Assert.True(Math.Abs(folds[0].State[0]) <= 1e-8, $"fold at x = {folds[0].State[0]:R}");
         Assert.True(folds[0].Residual <= 1e-10);
+        Assert.Empty(branch.OfKind(SpecialPointKind.BranchPoint));
+        Assert.Empty(branch.OfKind(SpecialPointKind.Hopf));
         // Through the fold: both x = +√μ (stable, eigenvalue −2x) and x = −√μ (unstable) are on the branch, up to μ = 2.
         Assert.Contains(branch.Points, p => p.State[0] > 1 && p.Stability == StabilityType.Stable);
         Assert.Contains(branch.Points, p => p.State[0] < -1 && p.Stability == StabilityType.Unstable);
