@@ -50,6 +50,23 @@ public class ContinuationNormalFormTests
     }
 
     [Theory]
+    [InlineData(-1.0, 2.5)]
+    [InlineData(1.0, 2.5)]
+    [InlineData(-0.3, 0.7)]
+    public void FirstLyapunovCoefficientOfTheHopfNormalFormIsTwoSOverOmega(double s, double omega)
+    {
+        // ż = (μ + iω) z + s z|z|², z = x + iy. Kuznetsov (Elements of Applied Bifurcation Theory, §3.5) defines
+        // l1 = Re c1/ω for ẇ = λw + c1 w|w|² in the coordinate w = ⟨p, x⟩, x = wq + w̄q̄, with ⟨q, q⟩ = 1 (from memory).
+        // Here q = (1, −i)/√2, so z = √2 w and ẇ = λw + 2s w|w|²: l1 = 2s/ω; s < 0 is supercritical.
+        var sys = new HopfNormalForm(-1, omega, s);
+        var branch = Continuation.Trace(sys, "mu", [0.0, 0.0], new ContinuationOptions { ParameterMin = -1, ParameterMax = 1, Direction = ContinuationDirection.Increasing });
+        var hopf = Assert.Single(branch.OfKind(SpecialPointKind.Hopf));
+        double expected = 2 * s / omega;
+        Assert.True(Math.Abs(hopf.FirstLyapunovCoefficient!.Value - expected) <= 1e-6 * Math.Abs(expected), $"l1 = {hopf.FirstLyapunovCoefficient:R}, expected {expected:R}");
+        Assert.Contains(s < 0 ? "supercritical" : "subcritical", hopf.Description);
+    }
+
+    [Theory]
     [InlineData("transcritical")]
     [InlineData("pitchfork")]
     public void BranchPointOnTheTrivialBranchIsAtZero(string which)

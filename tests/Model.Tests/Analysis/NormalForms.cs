@@ -47,15 +47,20 @@ internal sealed class CuspNormalForm(double a = 0, double b = 1) : TestSystem(["
 /// Hopf normal form in Cartesian coordinates (Kuznetsov, §3.4): x' = μx − ωy − x(x² + y²),
 /// y' = ωx + μy − y(x² + y²). The origin has eigenvalues μ ± iω: Hopf at μ = 0 with period 2π/ω.
 /// </summary>
-internal sealed class HopfNormalForm(double mu = -1, double omega = 2.5) : TestSystem(["mu", "omega"], [mu, omega])
+/// <remarks>
+/// With the cubic coefficient s (x' = … + s x(x² + y²)) the complex form is ż = (μ + iω) z + s z|z|²:
+/// supercritical for s &lt; 0 (Kuznetsov, §3.4–3.5); see the test for l1 in Kuznetsov's normalisation.
+/// </remarks>
+internal sealed class HopfNormalForm(double mu = -1, double omega = 2.5, double cubic = -1) : TestSystem(["mu", "omega"], [mu, omega])
 {
     public override int Dimension => 2;
 
     public override void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt)
     {
         T r2 = y[0] * y[0] + y[1] * y[1];
-        dydt[0] = p[0] * y[0] - p[1] * y[1] - y[0] * r2;
-        dydt[1] = p[1] * y[0] + p[0] * y[1] - y[1] * r2;
+        T s = T.CreateChecked(cubic);
+        dydt[0] = p[0] * y[0] - p[1] * y[1] + s * y[0] * r2;
+        dydt[1] = p[1] * y[0] + p[0] * y[1] + s * y[1] * r2;
     }
 }
 
