@@ -1,0 +1,26 @@
+namespace Thermostrat.Model.Orbital;
+
+/// <summary>Angle conversions and normalization shared by the orbital code.</summary>
+internal static class Angles
+{
+    public const double DegToRad = Math.PI / 180.0;
+    public const double RadToDeg = 180.0 / Math.PI;
+    public const double ArcsecToRad = Math.PI / (180.0 * 3600.0);
+    public const double TwoPi = 2.0 * Math.PI;
+
+    /// <summary>An angle in degrees reduced to [0, 360).</summary>
+    public static double Normalize360(double deg)
+    {
+        double r = deg % 360.0;
+        if (r < 0) r += 360.0;
+        return r >= 360.0 ? 0.0 : r;
+    }
+
+    /// <summary>An angle in radians reduced to [0, 2π).</summary>
+    public static double NormalizeTwoPi(double rad)
+    {
+        double r = rad % TwoPi;
+        if (r < 0) r += TwoPi;
+        return r >= TwoPi ? 0.0 : r;
+    }
+}
