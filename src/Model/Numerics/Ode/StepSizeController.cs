@@ -1,0 +1,80 @@
+namespace Thermostrat.Model.Numerics.Ode;
+
+/// <summary>
+/// Step-size control from the error norm err of each attempt (err ≤ 1 accepts), with k = ErrorOrder + 1.
+/// </summary>
+/// <remarks>
+/// <para>Explicit methods: the PI controller h_new = h · safety · err_n^(−α) · err_{n−1}^β with α = 1/k − 0.75β,
+/// β = 0.2/k (Gustafsson 1991, ACM TOMS 17, 533; Hairer and Wanner II, Sect. IV.2 — β = 0.04 for DOPRI5 as in its code),
+/// which damps the step-size oscillation of the plain controller when stability limits the step.</para>
+/// <para>Rosenbrock: Gustafsson's predictive controller (Hairer and Wanner II, Sect. IV.8, eq. 8.21 and the RODAS code):
+/// the smaller of the standard step safety · err^(−1/k) · h and the predictive step
+/// safety · (h_n/h_{n−1}) · (err_{n−1}/err_n²)^(1/k) · h_n.</para>
+/// <para>After a rejection the step is reduced by safety · err^(−1/k) (at least by <see cref="MinFactor"/>) and the following
+/// accepted step may not grow.</para>
+/// </remarks>
+internal sealed class StepSizeController
+{
+    /// <summary>Aim below the error the formula predicts, so that the next step is likely accepted (common practice, 0.9).</summary>
+    private const double Safety = 0.9;
+
+    /// <summary>Never shrink by more than 5× per attempt: the error model is asymptotic and distrusts large extrapolation.</summary>
+    private const double MinFactor = 0.2;
+
+    /// <summary>Never grow by more than 10× (explicit, as DOPRI5 and SciPy) or 6× (Rosenbrock, as RODAS) per step.</summary>
+    private const double MaxFactorExplicit = 10.0, MaxFactorRosenbrock = 6.0;
+
+    /// <summary>Floor on the remembered error, so one nearly exact step does not trigger an overlong next step (DOPRI5: 1e-4; RODAS: 1e-2).</summary>
+    private const double ErrorFloorExplicit = 1e-4, ErrorFloorRosenbrock = 1e-2;
+
+    private readonly bool _predictive;
+    private readonly double _k, _alpha, _beta, _maxFactor;
+    private double _errOld, _hOld;
+    private bool _lastRejected, _hasHistory;
+
+    public StepSizeController(int errorOrder, bool predictive)
+    {
+        _predictive = predictive;
+        _k = errorOrder + 1;
+        _beta = predictive ? 0.0 : 0.2 / _k;
+        _alpha = 1.0 / _k - 0.75 * _beta;
+        _maxFactor = predictive ? MaxFactorRosenbrock : MaxFactorExplicit;
+        _errOld = predictive ? ErrorFloorRosenbrock : ErrorFloorExplicit;
+    }
+
+    /// <summary>Next step size after accepting a step of size h with error norm err.</summary>
+    public double Accepted(double h, double err)
+    {
+        double factor;
+        if (_predictive)
+        {
+            double e = Math.Max(err, 1e-16);
+            factor = Safety * Math.Pow(e, -1.0 / _k);
+            if (_hasHistory)
+            {
+                double predictive = Safety * (h / _hOld) * Math.Pow(_errOld / (e * e), 1.0 / _k);
+                factor = Math.Min(factor, predictive);
+            }
+            _errOld = Math.Max(ErrorFloorRosenbrock, err);
+        }
+        else
+        {
+            factor = err == 0.0 ? _maxFactor : Safety * Math.Pow(err, -_alpha) * Math.Pow(_errOld, _beta);
+            _errOld = Math.Max(err, ErrorFloorExplicit);
+        }
+        factor = Math.Clamp(factor, MinFactor, _maxFactor);
+        if (_lastRejected) factor = Math.Min(factor, 1.0);
+        _lastRejected = false;
+        _hOld = h;
+        _hasHistory = true;
+        return h * factor;
+    }
+
+    /// <summary>Step size to retry with after rejecting a step of size h with error norm err &gt; 1.</summary>
+    public double Rejected(double h, double err)
+    {
+        _lastRejected = true;
+        double factor = double.IsFinite(err) ? Safety * Math.Pow(err, -1.0 / _k) : MinFactor;
+        return h * Math.Clamp(factor, MinFactor, 1.0);
+    }
+}
