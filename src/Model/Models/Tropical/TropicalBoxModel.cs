@@ -8,6 +8,7 @@ using Thermostrat.Model.Forcing;
 using Thermostrat.Model.Numerics;
 using Thermostrat.Model.Orbital;
 using Thermostrat.Model.Seawater;
+using Thermostrat.Model.Models;
 
 namespace Thermostrat.Model.Models.Tropical;
 
@@ -26,7 +27,7 @@ namespace Thermostrat.Model.Models.Tropical;
 /// Heat budgets: dT_b/dt = heat_b/(ρ0 c_p V_b); salt: dS_b/dt = salt_b/V_b.</para>
 /// <para>Immutable after construction and safe to evaluate from several threads.</para>
 /// </remarks>
-public sealed class TropicalBoxModel : IParametricSystem
+public sealed class TropicalBoxModel : IParametricSystem, IDescribedModel
 {
     /// <summary>Seconds per year used to express rates per year (the 365.2422-day tropical year).</summary>
     public const double SecondsPerYear = SolarCalendar.SecondsPerYear;
@@ -45,7 +46,7 @@ public sealed class TropicalBoxModel : IParametricSystem
     private readonly int _meanSalinityParameter = -1, _meanSalinityState = -1;
     private readonly IEquationOfState _eos;
     private readonly ColumnInfo[] _columns;
-    private readonly ModelDescription _description;
+    private readonly TropicalModelDescription _description;
 
     private TropicalBoxModel(TropicalModelOptions options, TropicalForcing forcing, ProcessCatalog catalog, IEquationOfState eos)
     {
@@ -355,10 +356,16 @@ public sealed class TropicalBoxModel : IParametricSystem
     /// The diagnostics at (t, y), in slot order and in their reported units (e.g. Sv), into
     /// <paramref name="destination"/> (length ≥ <see cref="DiagnosticEntries"/>.Count).
     /// </summary>
-    public void EvaluateDiagnostics(double t, ReadOnlySpan<double> y, Span<double> destination)
+    public void EvaluateDiagnostics(double t, ReadOnlySpan<double> y, Span<double> destination) =>
+        EvaluateDiagnostics(t, y, destination, _parameters);
+
+    /// <summary>As <see cref="EvaluateDiagnostics(double, ReadOnlySpan{double}, Span{double})"/> with the parameters taken from <paramref name="parameters"/>.</summary>
+    public void EvaluateDiagnostics(double t, ReadOnlySpan<double> y, Span<double> destination, ReadOnlySpan<double> parameters)
     {
+        if (parameters.Length != _parameters.Length) throw new ArgumentException($"parameters has length {parameters.Length}; the model has {_parameters.Length}.", nameof(parameters));
+        if (destination.Length < DiagnosticEntries.Count) throw new ArgumentException($"destination has length {destination.Length}; {DiagnosticEntries.Count} diagnostics are needed.", nameof(destination));
         Span<double> dydt = stackalloc double[Dimension];
-        Core(t, y, _parameters, dydt, destination, default);
+        Core(t, y, parameters, dydt, destination, default);
     }
 
     /// <summary>One diagnostic at (t, y) by name, in its reported unit (convenience; allocates a little).</summary>
@@ -490,9 +497,22 @@ public sealed class TropicalBoxModel : IParametricSystem
     // ------------------------------------------------------------------ description
 
     /// <summary>Processes, state, options (with values, units, meanings and sources) and output columns, for documentation.</summary>
-    public ModelDescription Describe() => _description;
+    public TropicalModelDescription Describe() => _description;
 
-    private ModelDescription BuildDescription(ProcessCatalog catalog, ProcessDescriptor[] ordered)
+    /// <summary>The model in the common form of <see cref="IDescribedModel"/> (state, parameters, equations and references of the enabled processes).</summary>
+    public ModelDescription Description => new()
+    {
+        Name = "tropical",
+        Title = "tropical ocean–cloud box model (warm pool, cold tongue, two ventilation boxes, thermocline, deep reservoir)",
+        TimeUnit = "yr",
+        StateVariables = StateVariables.Select(s => new StateVariableInfo(s.Name, s.Unit, s.Meaning)).ToArray(),
+        Parameters = ParameterEntries.Select(p => new ParameterInfo(p.Key, p.Attribute?.Unit ?? "", p.Value, p.Attribute?.Meaning ?? p.Meaning ?? "")).ToArray(),
+        Equations = _description.Processes.Where(p => p.Enabled).Select(p => $"{p.Name}: {p.Equation}").ToArray(),
+        References = _description.Processes.Where(p => p.Enabled).SelectMany(p => p.References).Distinct().ToArray(),
+        Notes = [.. _description.Forcing],
+    };
+
+    private TropicalModelDescription BuildDescription(ProcessCatalog catalog, ProcessDescriptor[] ordered)
     {
         var processes = ordered.Select(e => new ProcessInfo(e.Name, e.Role, e.Equation, e.References, Options.Processes[e.Name].Enabled, "Model:Processes:" + e.Name, e.Order)).ToArray();
         var parameterKeys = new HashSet<string>(ParameterEntries.Select(p => p.Key), StringComparer.OrdinalIgnoreCase);
@@ -500,7 +520,7 @@ public sealed class TropicalBoxModel : IParametricSystem
         LayoutBuilder.CollectOptions(Options, "Model", options, parameterKeys);
         foreach (var p in ParameterEntries.Where(p => p.Attribute is null))
             options.Add(new OptionInfo(p.Key, p.Value.ToString("R", CultureInfo.InvariantCulture), "g kg-1", p.Meaning ?? "", p.Source.Length > 0 ? p.Source : "derived", true));
-        return new ModelDescription(processes, StateVariables, options, _columns, Forcing.Describe());
+        return new TropicalModelDescription(processes, StateVariables, options, _columns, Forcing.Describe());
     }
 }
 

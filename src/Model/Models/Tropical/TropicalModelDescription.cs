@@ -32,7 +32,7 @@ public sealed record ColumnInfo(string Name, string Unit, string Meaning, string
 /// <param name="Options">Every option with its value, unit, meaning and source.</param>
 /// <param name="Columns">The output columns of a run, in order.</param>
 /// <param name="Forcing">One line per forcing input (what the run is driven by).</param>
-public sealed record ModelDescription(
+public sealed record TropicalModelDescription(
     IReadOnlyList<ProcessInfo> Processes,
     IReadOnlyList<StateEntry> StateVariables,
     IReadOnlyList<OptionInfo> Options,
