@@ -12,9 +12,13 @@ public sealed class ForcingOptions : ISelfValidating
     [Parameter("", "resolve the seasonal cycle with daily-mean insolation (false: annual means)")]
     public bool SeasonalCycle { get; set; }
 
-    /// <summary>Spacing of the precomputed orbital insolation grid (interpolated by cubic splines between nodes).</summary>
-    [Parameter("yr", "spacing of the precomputed orbital insolation grid", Source = "common practice (orbital elements vary on kyr scales; 250 yr resolves 19-kyr precession with ≈ 80 nodes per cycle)", Min = 1, Max = 10000)]
-    public double OrbitalGridSpacing_yr { get; set; } = 250.0;
+    /// <summary>Spacing of the precomputed annual-mean insolation grid (interpolated by cubic splines between nodes).</summary>
+    [Parameter("yr", "spacing of the precomputed annual-mean insolation grid", Source = "common practice (annual means depend on eccentricity and obliquity only, periods ≥ 29 kyr; 1 kyr gives ≥ 29 nodes per cycle)", Min = 1, Max = 10000)]
+    public double AnnualGridSpacing_yr { get; set; } = 1000.0;
+
+    /// <summary>Spacing of the precomputed seasonal-insolation grid (harmonic coefficients splined between nodes).</summary>
+    [Parameter("yr", "spacing of the precomputed seasonal-insolation grid", Source = "common practice (19-kyr precession: 250 yr gives ≈ 76 nodes per cycle)", Min = 1, Max = 10000)]
+    public double SeasonalGridSpacing_yr { get; set; } = 250.0;
 
     /// <summary>Number of annual harmonics representing the seasonal insolation cycle of each box.</summary>
     [Parameter("1", "annual harmonics kept in the seasonal insolation cycle", Source = "common practice (band-mean daily insolation outside the polar caps is smooth; 8 harmonics reproduce it to < 0.5 W m-2, checked in the tests)", Min = 1, Max = 24)]
