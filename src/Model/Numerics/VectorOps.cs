@@ -98,8 +98,7 @@ internal static class StageOps
     /// <summary>output_i = y_i + h Σ_{j &lt; count} a_j K[j·n + i].</summary>
     public static void Combine(ReadOnlySpan<double> y, double h, ReadOnlySpan<double> a, int count, ReadOnlySpan<double> k, int n, Span<double> output)
     {
-        if (y.Length < n || output.Length < n || a.Length < count || k.Length < count * n)
-            throw new ArgumentException("Stage combination buffers are shorter than the system dimension.");
+        if (y.Length < n || output.Length < n || a.Length < count || k.Length < count * n) ThrowShort();
         ref double ry = ref MemoryMarshal.GetReference(y);
         ref double rk = ref MemoryMarshal.GetReference(k);
         ref double ro = ref MemoryMarshal.GetReference(output);
@@ -131,8 +130,7 @@ internal static class StageOps
         ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol)
     {
         if (n == 0) return 0.0;
-        if (y.Length < n || yNew.Length < n || atol.Length < n || e.Length < count || k.Length < count * n)
-            throw new ArgumentException("Error-norm buffers are shorter than the system dimension.");
+        if (y.Length < n || yNew.Length < n || atol.Length < n || e.Length < count || k.Length < count * n) ThrowShort();
         ref double rk = ref MemoryMarshal.GetReference(k);
         ref double ry = ref MemoryMarshal.GetReference(y);
         ref double rn = ref MemoryMarshal.GetReference(yNew);
@@ -166,4 +164,7 @@ internal static class StageOps
         }
         return Math.Sqrt(s / n);
     }
+
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private static void ThrowShort() => throw new ArgumentException("Stage buffers are shorter than the system dimension.");
 }
