@@ -1,3 +1,4 @@
+using System.Numerics;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 
@@ -10,8 +11,8 @@ namespace Thermostrat.Model.Numerics;
 /// allocates; meant for the n ≲ 100 systems of implicit integrators and Newton iterations.
 /// </summary>
 /// <remarks>
-/// Measured against MathNet.Numerics' <c>Matrix.LU().Solve</c> in bench/OdeBench.cs: this routine is
-/// faster for the integrator's sizes and needs no heap matrix, so the stiff integrator uses it.
+/// Measured against MathNet.Numerics' <c>Matrix.LU().Solve</c> in bench/OdeBench.cs: faster at n = 3–50 and needs no heap
+/// matrix. (The Rosenbrock integrator uses the column-major variant, whose substitutions vectorise.)
 /// </remarks>
 public static class DenseLu
 {
@@ -51,9 +52,14 @@ public static class DenseLu
                 row = l;
                 if (l == 0.0) continue;
                 ref double target = ref Unsafe.Add(ref row, 1);
-                if (m >= 8) VectorOps.Axpy(-l, MemoryMarshal.CreateReadOnlySpan(ref pivotRow, m), MemoryMarshal.CreateSpan(ref target, m));
-                else
-                    for (int j = 0; j < m; j++) Unsafe.Add(ref target, j) -= l * Unsafe.Add(ref pivotRow, j);
+                int j = 0;
+                if (Vector.IsHardwareAccelerated && m >= Vector<double>.Count)
+                {
+                    var vl = new Vector<double>(l);
+                    for (; j <= m - Vector<double>.Count; j += Vector<double>.Count)
+                        (Vector.LoadUnsafe(ref target, (nuint)j) - vl * Vector.LoadUnsafe(ref pivotRow, (nuint)j)).StoreUnsafe(ref target, (nuint)j);
+                }
+                for (; j < m; j++) Unsafe.Add(ref target, j) -= l * Unsafe.Add(ref pivotRow, j);
             }
         }
         return true;
@@ -76,59 +82,42 @@ public static class DenseLu
         for (int i = 1; i < n; i++)
         {
             ref double row = ref Unsafe.Add(ref lu, i * n);
-            double s = Unsafe.Add(ref x, i);
-            for (int j = 0; j < i; j++) s -= Unsafe.Add(ref row, j) * Unsafe.Add(ref x, j);
-            Unsafe.Add(ref x, i) = s;
+            Unsafe.Add(ref x, i) -= Dot(ref row, ref x, i);
         }
         for (int i = n - 1; i >= 0; i--)
         {
             ref double row = ref Unsafe.Add(ref lu, i * n);
-            double s = Unsafe.Add(ref x, i);
-            for (int j = i + 1; j < n; j++) s -= Unsafe.Add(ref row, j) * Unsafe.Add(ref x, j);
+            double s = Unsafe.Add(ref x, i) - Dot(ref Unsafe.Add(ref row, i + 1), ref Unsafe.Add(ref x, i + 1), n - i - 1);
             Unsafe.Add(ref x, i) = s / Unsafe.Add(ref row, i);
         }
     }
 
-    /// <summary>
-    /// <see cref="Factor(Span{double}, int, Span{int})"/> that also stores the reciprocal of each pivot in <paramref name="inverseDiagonal"/>, so that
-    /// <see cref="SolveWithInverseDiagonal"/> multiplies instead of divides (the integrators solve six times per factorisation).
-    /// </summary>
-    internal static bool Factor(Span<double> matrix, int n, Span<int> pivots, Span<double> inverseDiagonal)
+    /// <summary>Σ_{j &lt; m} a_j b_j with independent partial sums (SIMD when long enough), so the substitutions are not one long dependency chain.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static double Dot(ref double a, ref double b, int m)
     {
-        if (!Factor(matrix, n, pivots)) return false;
-        for (int i = 0; i < n; i++) inverseDiagonal[i] = 1.0 / matrix[i * n + i];
-        return true;
-    }
-
-    /// <summary><see cref="Solve"/> with the reciprocal pivots from <see cref="Factor(Span{double}, int, Span{int}, Span{double})"/>.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal static void SolveWithInverseDiagonal(ReadOnlySpan<double> factors, int n, ReadOnlySpan<int> pivots, ReadOnlySpan<double> inverseDiagonal, Span<double> rhs)
-    {
-        if (n < 0 || factors.Length < n * n || pivots.Length < n) ThrowBadSizes(n, factors.Length, pivots.Length, nameof(factors));
-        if (rhs.Length < n || inverseDiagonal.Length < n) ThrowBadRhs(n, Math.Min(rhs.Length, inverseDiagonal.Length));
-        ref double lu = ref MemoryMarshal.GetReference(factors);
-        ref double x = ref MemoryMarshal.GetReference(rhs);
-        ref double inv = ref MemoryMarshal.GetReference(inverseDiagonal);
-        for (int k = 0; k < n; k++)
+        int j = 0;
+        double s = 0.0;
+        int w = Vector<double>.Count;
+        if (Vector.IsHardwareAccelerated && m >= 2 * w)
         {
-            int p = pivots[k];
-            if ((uint)p >= (uint)n) ThrowBadPivot(k, p, n);
-            if (p != k) (Unsafe.Add(ref x, k), Unsafe.Add(ref x, p)) = (Unsafe.Add(ref x, p), Unsafe.Add(ref x, k));
+            var acc0 = Vector<double>.Zero;
+            var acc1 = Vector<double>.Zero;
+            for (; j <= m - 2 * w; j += 2 * w)
+            {
+                acc0 += Vector.LoadUnsafe(ref a, (nuint)j) * Vector.LoadUnsafe(ref b, (nuint)j);
+                acc1 += Vector.LoadUnsafe(ref a, (nuint)(j + w)) * Vector.LoadUnsafe(ref b, (nuint)(j + w));
+            }
+            s = Vector.Sum(acc0 + acc1);
         }
-        for (int i = 1; i < n; i++)
+        double s1 = 0.0;
+        for (; j + 1 < m; j += 2)
         {
-            ref double row = ref Unsafe.Add(ref lu, i * n);
-            double s = Unsafe.Add(ref x, i);
-            for (int j = 0; j < i; j++) s -= Unsafe.Add(ref row, j) * Unsafe.Add(ref x, j);
-            Unsafe.Add(ref x, i) = s;
+            s += Unsafe.Add(ref a, j) * Unsafe.Add(ref b, j);
+            s1 += Unsafe.Add(ref a, j + 1) * Unsafe.Add(ref b, j + 1);
         }
-        for (int i = n - 1; i >= 0; i--)
-        {
-            ref double row = ref Unsafe.Add(ref lu, i * n);
-            double s = Unsafe.Add(ref x, i);
-            for (int j = i + 1; j < n; j++) s -= Unsafe.Add(ref row, j) * Unsafe.Add(ref x, j);
-            Unsafe.Add(ref x, i) = s * Unsafe.Add(ref inv, i);
-        }
+        if (j < m) s += Unsafe.Add(ref a, j) * Unsafe.Add(ref b, j);
+        return s + s1;
     }
 
     // Throws live in separate methods: an interpolated message inside the hot methods would make every call zero a large stack frame.

@@ -2,7 +2,7 @@ namespace Thermostrat.Model.Numerics.Ode;
 
 /// <summary>
 /// The step of a Rosenbrock–Wanner method (<see cref="RosenbrockTableau"/>): one Jacobian and ∂f/∂t per step (kept across
-/// rejections), one LU factorisation of I/(hγ) − J per attempt (<see cref="DenseLu"/>), one substitution per stage.
+/// rejections), one LU factorisation of I/(hγ) − J per attempt (<see cref="ColumnMajorLu"/>), one substitution per stage.
 /// </summary>
 internal sealed class RosenbrockStepper : Stepper
 {
@@ -69,7 +69,7 @@ internal sealed class RosenbrockStepper : Stepper
                 yd[j] = new Dual(y[j], 1.0);
                 df(t, yd, fd);
                 yd[j] = new Dual(y[j], 0.0);
-                for (int i = 0; i < n; i++) _jac[i * n + j] = fd[i].Derivative;
+                for (int i = 0; i < n; i++) _jac[j * n + i] = fd[i].Derivative; // column-major: column j is ∂f/∂y_j
             }
             if (n > 0)
                 for (int i = 0; i < n; i++) _fx[i] = fd[i].Value;
@@ -90,7 +90,7 @@ internal sealed class RosenbrockStepper : Stepper
                 Evaluate(t, yp, fm);
                 yp[j] = yj;
                 double span = up - down;
-                for (int i = 0; i < n; i++) _jac[i * n + j] = (fp[i] - fm[i]) / span;
+                for (int i = 0; i < n; i++) _jac[j * n + i] = (fp[i] - fm[i]) / span;
             }
         }
         Counters.JacobianEvaluations++;
@@ -119,18 +119,18 @@ internal sealed class RosenbrockStepper : Stepper
         {
             Linearise(t, y);
             int bad = VectorOps.FirstNonFinite(_jac);
-            if (bad >= 0) { badIndex = bad / n; return TrialOutcome.NonFinite; }
+            if (bad >= 0) { badIndex = bad % n; return TrialOutcome.NonFinite; } // row i of column-major J[i + j·n]
             bad = VectorOps.FirstNonFinite(_ft);
             if (bad >= 0) { badIndex = bad; return TrialOutcome.NonFinite; }
         }
 
-        // W = I/(hγ) − J, factored.
+        // W = I/(hγ) − J (column-major, like J), factored.
         double diag = 1.0 / (h * _tab.Gamma);
         var w = _w.AsSpan();
         for (int i = 0; i < n * n; i++) w[i] = -_jac[i];
         for (int i = 0; i < n; i++) w[i * n + i] += diag;
         Counters.LuFactorizations++;
-        if (!DenseLu.Factor(w, n, _pivots, _invDiag)) return TrialOutcome.Singular;
+        if (!ColumnMajorLu.Factor(w, n, _pivots, _invDiag)) return TrialOutcome.Singular;
 
         var tab = _tab;
         var u = _u.AsSpan();
@@ -154,7 +154,7 @@ internal sealed class RosenbrockStepper : Stepper
             }
             double g = h * tab.GammaSum[s];
             if (g != 0.0 && !_autonomous) VectorOps.Axpy(g, _ft, us);
-            DenseLu.SolveWithInverseDiagonal(w, n, _pivots, _invDiag, us);
+            ColumnMajorLu.Solve(w, n, _pivots, _invDiag, us);
             Counters.LinearSolves++;
         }
         StageOps.Combine(y, 1.0, tab.M, _s, u, n, yNew);
