@@ -22,9 +22,9 @@ public static class OdeBench
         var references = LoadReferences();
 
         o.WriteLine("### Work–precision (error = max relative error over components at tEnd vs SciPy Radau rtol 1e-12, tests/Model.Tests/Fixtures/Numerics)");
-        WorkPrecision(context, "Robertson [0, 40]", new Robertson(), [1, 0, 0], 40, references[("robertson", 40)], 1e-6, explicitCap: 400_000);
+        WorkPrecision(context, "Robertson [0, 40]", new Robertson(), [1, 0, 0], 40, references[("robertson", 40)], 1e-4, explicitCap: 400_000);
         WorkPrecision(context, "Van der Pol mu = 1000 [0, 3000]", new VanDerPol(1000), [2, 0], 3000, references[("vanderpol_mu1000", 3000)], 1e-3, explicitCap: 300_000);
-        WorkPrecision(context, "Stommel-type two-box [0, 50] (invented scenario)", new Stommel(3.0, 1.0, 0.3), [1.0, 0.5], 50, references[("stommel", 50)], 1.0, explicitCap: 2_000_000);
+        WorkPrecision(context, "Stommel-type two-box, periodic freshwater forcing [0, 50] (invented scenario)", new Stommel(3.0, 1.0, 0.5, 10.0, 0.3), [1.0, 0.5], 50, references[("stommel_forced", 50)], 1.0, explicitCap: 2_000_000);
 
         o.WriteLine();
         o.WriteLine("### Targets");
@@ -104,7 +104,8 @@ public static class OdeBench
                 double seconds = steps * 4 > 4_000_000
                     ? Time(() => Rk4(mathNet, system, y0, tEnd, steps), 1)
                     : Steady(context, () => Rk4(mathNet, system, y0, tEnd, steps));
-                o.WriteLine($"  {name,-18} {"fixed",8} {err,10:E2} {seconds * 1e3,10:F3} {4 * steps,10} {steps,9} {"",7}  steps needed for DOPRI5's {target:E1}");
+                string why = err < 0.01 * target ? " (first stable step: stability, not accuracy, sets it)" : "";
+                o.WriteLine($"  {name,-18} {"fixed",8} {err,10:E2} {seconds * 1e3,10:F3} {4 * steps,10} {steps,9} {"",7}  steps needed for DOPRI5's {target:E1}{why}");
             }
         }
     }
@@ -368,15 +369,18 @@ public static class OdeBench
         }
     }
 
-    /// <summary>Stommel (1961)-type two-box model, nondimensional: T' = η1 − T − |T − S|T, S' = η2 − η3 S − |T − S|S (form from memory).</summary>
-    private sealed class Stommel(double eta1, double eta2, double eta3) : IOdeSystem
+    /// <summary>
+    /// Stommel (1961)-type two-box model, nondimensional: T' = η1 − T − |T − S|T, S' = η2(t) − η3 S − |T − S|S (form from memory),
+    /// with invented periodic freshwater forcing η2(t) = η2 + a sin(2πt/P).
+    /// </summary>
+    private sealed class Stommel(double eta1, double eta2, double amplitude, double period, double eta3) : IOdeSystem
     {
         public int Dimension => 2;
         public void Evaluate<T>(double t, ReadOnlySpan<T> y, Span<T> dydt) where T : struct, IFloatingPointIeee754<T>
         {
             T q = T.Abs(y[0] - y[1]);
             dydt[0] = T.CreateChecked(eta1) - y[0] - q * y[0];
-            dydt[1] = T.CreateChecked(eta2) - T.CreateChecked(eta3) * y[1] - q * y[1];
+            dydt[1] = T.CreateChecked(eta2 + amplitude * Math.Sin(2 * Math.PI * t / period)) - T.CreateChecked(eta3) * y[1] - q * y[1];
         }
     }
 
