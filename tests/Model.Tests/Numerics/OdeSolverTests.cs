@@ -424,19 +424,25 @@ public class OdeSolverTests
     [InlineData(OdeMethod.EulerMaruyama)]
     public void MemoryDoesNotGrowWithRunLength(OdeMethod method)
     {
-        // Every allocation of a solve happens at its start: 100 and 10 000 steps allocate the same bytes.
+        // Every allocation of a solve happens at its start: a run of 100× the steps allocates no more
+        // than a short one, up to a small constant (the runtime's tiering may allocate a little on the
+        // thread during a long first run; one allocation per step would add ≥ 240 KB here).
         var sink = new NullSink();
         var noise = new AdditiveNoise(0.01);
         long Allocated(double tEnd)
         {
             var options = new SolverOptions { Method = method, MaxStep = 0.01, FixedStep = method == OdeMethod.EulerMaruyama ? 0.01 : null, Noise = noise };
-            OdeSolver.Solve(new HarmonicSystem(), 0, [1, 0], tEnd, options, sink);
-            long before = GC.GetAllocatedBytesForCurrentThread();
-            OdeSolver.Solve(new HarmonicSystem(), 0, [1, 0], tEnd, options, sink);
-            return GC.GetAllocatedBytesForCurrentThread() - before;
+            long best = long.MaxValue;
+            for (int k = 0; k < 3; k++)
+            {
+                long before = GC.GetAllocatedBytesForCurrentThread();
+                OdeSolver.Solve(new HarmonicSystem(), 0, [1, 0], tEnd, options, sink);
+                best = Math.Min(best, GC.GetAllocatedBytesForCurrentThread() - before);
+            }
+            return best;
         }
         long shortRun = Allocated(1), longRun = Allocated(100);
-        Assert.Equal(shortRun, longRun);
+        Assert.InRange(longRun, 0, shortRun + 4096);
     }
 
     private sealed class NullSink : IOutputSink
