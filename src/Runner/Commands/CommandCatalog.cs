@@ -15,6 +15,7 @@ public static class CommandCatalog
     /// <summary>Every command, in the order help lists them.</summary>
     public static IEnumerable<IRunnerCommand> All() =>
     [
+        new RunCommand(),
         new InsolationCommand(),
         new DensityMatchCommand(),
         new BranchCommand(),

@@ -57,12 +57,12 @@ public sealed class DescribeCommand : IRunnerCommand
         if (d.Summary.Length > 0) sb.AppendLine(d.Summary);
         sb.AppendLine();
         sb.AppendLine("State variables");
-        foreach (var v in d.StateVariables) sb.AppendLine($"  {v.Name,-18} {v.Unit,-10} {v.Meaning}");
+        sb.Append(Table([["name", "unit", "meaning"], .. d.StateVariables.Select(v => new[] { v.Name, v.Unit, v.Meaning })]));
         if (d.Diagnostics.Count > 0)
         {
             sb.AppendLine();
-            sb.AppendLine("Diagnostics");
-            foreach (var v in d.Diagnostics) sb.AppendLine($"  {v.Name,-34} {v.Unit,-10} {v.Meaning}");
+            sb.AppendLine("Output columns beside the state (diagnostics and forcing)");
+            sb.Append(Table([["column", "unit", "meaning"], .. d.Diagnostics.Select(v => new[] { v.Name, v.Unit, v.Meaning })]));
         }
         foreach (var on in new[] { true, false })
         {
@@ -80,13 +80,16 @@ public sealed class DescribeCommand : IRunnerCommand
         }
         sb.AppendLine();
         sb.AppendLine("Parameters");
-        var rows = new List<string[]> { new[] { "key", "value", "unit", "meaning", "source" } };
-        rows.AddRange(d.Parameters.Select(p => new[] { p.Key, p.Value, p.Unit, p.Meaning, p.Source }));
-        var w = new StringWriter();
-        Output.TextTable.Write(w, rows);
-        sb.Append(w);
+        sb.Append(Table([["key", "value", "unit", "meaning", "source"], .. d.Parameters.Select(p => new[] { p.Key, p.Value, p.Unit, p.Meaning, p.Source })]));
         foreach (var n in d.Notes) sb.AppendLine("Note: " + n);
         return sb.ToString();
+    }
+
+    private static string Table(List<string[]> rows)
+    {
+        var w = new StringWriter();
+        Output.TextTable.Write(w, rows);
+        return w.ToString();
     }
 
     /// <summary>Markdown rendering (docs/model.md).</summary>

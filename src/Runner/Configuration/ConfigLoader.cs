@@ -38,7 +38,7 @@ public static class ConfigLoader
     public static T Load<T>(ConfigRequest request) where T : class, new()
     {
         var root = Build(request);
-        CheckKeys(root, typeof(T), "");
+        CheckKeys(root, new T(), "");
         T settings;
         try
         {
@@ -119,17 +119,22 @@ public static class ConfigLoader
 
     /// <summary>
     /// Checks every key present in <paramref name="config"/> against the properties of
-    /// <paramref name="type"/>: unknown keys and values that do not parse as the property's type
+    /// the default instance: unknown keys and values that do not parse as the property's type
     /// are errors. Collects all problems.
     /// </summary>
-    public static void CheckKeys(IConfiguration config, Type type, string path)
+    /// <remarks>
+    /// The default instance <paramref name="defaults"/> tells the run-time types of values that the
+    /// declared types do not (a dictionary pre-filled with options of several derived types); a
+    /// pre-filled dictionary is a closed set of names.
+    /// </remarks>
+    public static void CheckKeys(IConfiguration config, object defaults, string path)
     {
         var problems = new List<string>();
-        CheckSection(config, type, path, problems);
+        CheckSection(config, defaults.GetType(), defaults, path, problems);
         if (problems.Count > 0) throw new ConfigurationException(problems);
     }
 
-    private static void CheckSection(IConfiguration section, Type type, string path, List<string> problems)
+    private static void CheckSection(IConfiguration section, Type type, object? instance, string path, List<string> problems)
     {
         var props = type.GetProperties(BindingFlags.Public | BindingFlags.Instance).Where(p => p.CanWrite || IsCollection(p.PropertyType)).ToList();
         foreach (var child in section.GetChildren())
@@ -145,11 +150,12 @@ public static class ConfigLoader
                     : $"unknown configuration key '{key}'; valid keys here: {valid}");
                 continue;
             }
-            CheckValue(child, prop.PropertyType, key, prop.GetCustomAttribute<ParameterAttribute>(), problems);
+            object? value = instance is null || prop.GetIndexParameters().Length > 0 ? null : prop.GetValue(instance);
+            CheckValue(child, value?.GetType() ?? prop.PropertyType, value, key, prop.GetCustomAttribute<ParameterAttribute>(), problems);
         }
     }
 
-    private static void CheckValue(IConfigurationSection child, Type t, string key, ParameterAttribute? attr, List<string> problems)
+    private static void CheckValue(IConfigurationSection child, Type t, object? instance, string key, ParameterAttribute? attr, List<string> problems)
     {
         var under = Nullable.GetUnderlyingType(t);
         bool nullable = under is not null;
@@ -175,7 +181,20 @@ public static class ConfigLoader
         }
         if (IsDictionary(t, out var valueType))
         {
-            foreach (var entry in child.GetChildren()) CheckValue(entry, valueType!, key + ":" + entry.Key, null, problems);
+            var existing = instance as IDictionary;
+            var names = existing?.Keys.Cast<object>().Select(k => k.ToString()!).ToList() ?? [];
+            foreach (var entry in child.GetChildren())
+            {
+                var name = names.FirstOrDefault(n => string.Equals(n, entry.Key, StringComparison.OrdinalIgnoreCase));
+                if (names.Count > 0 && name is null && !IsScalar(valueType!))
+                {
+                    var near = KeySuggester.Closest(entry.Key, names);
+                    problems.Add($"unknown entry '{key}:{entry.Key}'{(near is null ? "" : $"; did you mean '{key}:{near}'?")} (valid entries: {string.Join(", ", names)})");
+                    continue;
+                }
+                object? value = name is null ? null : existing![name];
+                CheckValue(entry, value?.GetType() ?? valueType!, value, key + ":" + entry.Key, null, problems);
+            }
             return;
         }
         if (IsList(t, out var elemType))
@@ -184,11 +203,11 @@ public static class ConfigLoader
             {
                 if (!int.TryParse(entry.Key, NumberStyles.None, CultureInfo.InvariantCulture, out _))
                     problems.Add($"{key}:{entry.Key}: {key} is a list; its entries are numbered 0, 1, 2, ...");
-                else CheckValue(entry, elemType!, key + ":" + entry.Key, null, problems);
+                else CheckValue(entry, elemType!, null, key + ":" + entry.Key, null, problems);
             }
             return;
         }
-        CheckSection(child, t, key, problems);
+        CheckSection(child, t, instance, key, problems);
     }
 
     private static string Join(string path, string name) => path.Length == 0 ? name : path + ":" + name;

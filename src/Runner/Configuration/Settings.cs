@@ -1,4 +1,5 @@
 using Thermostrat.Model.Configuration;
+using Thermostrat.Model.Models.Tropical;
 
 namespace Thermostrat.Runner.Configuration;
 
@@ -22,4 +23,10 @@ public sealed class Settings
 
     /// <summary>Top-of-atmosphere insolation.</summary>
     public InsolationOptions Insolation { get; set; } = new();
+
+    /// <summary>The tropical ocean–cloud box model: constants, boxes, processes, forcing.</summary>
+    public TropicalModelOptions Model { get; set; } = new();
+
+    /// <summary>A forced run: duration, start age, output interval, integrator.</summary>
+    public RunOptions Run { get; set; } = new();
 }

@@ -312,13 +312,14 @@ public static class OdeSolver
                 if (switchNow && _options.Method == OdeMethod.Auto && t < _tEnd)
                 {
                     var from = _stepper.Method;
+                    double boundary = _stepper.StabilityBoundary;
                     _stepper = CreateStepper(OdeMethod.Rodas4);
                     bad = _stepper.Start(t, _y);
                     if (bad >= 0)
                         throw Failure(OdeFailureKind.NonFiniteState, $"f is not finite in component [{bad}] at t = {Fmt(t)}.", t, 0.0, bad, t);
                     _controller = new StepSizeController(_stepper.ErrorOrder, predictive: true);
                     (_switches ??= []).Add(new MethodSwitch(t, from, OdeMethod.Rodas4,
-                        $"stiff: |hλ| exceeded the explicit stability boundary {_stepper.StabilityBoundary:G3} on {StiffStepsToReport} recent steps"));
+                        $"stiff: |hλ| exceeded the explicit method's stability boundary {boundary:G3} on {StiffStepsToReport} recent steps"));
                 }
             }
 
