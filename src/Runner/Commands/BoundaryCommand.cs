@@ -68,13 +68,13 @@ public sealed class BoundaryCommand : IRunnerCommand
 
         var branch = Continuation.Trace(host.System, k1, start.State.AsSpan(), p, new ContinuationOptions
         {
-            ParameterMin = from, ParameterMax = to, ParameterScale = to - from, InitialStep = 0.002, MaxStep = 0.02,
+            ParameterMin = from, ParameterMax = to, ParameterScale = to - from, InitialStep = 0.01, MaxStep = 0.1,
             StateScale = host.StateScale, Validity = host.Validity,
         });
         var curveOptions = new CurveOptions
         {
             FirstParameterMin = from, FirstParameterMax = to, SecondParameterMin = sFrom, SecondParameterMax = sTo,
-            InitialStep = 0.002, MaxStep = 0.02, MaxPoints = maxPoints, StateScale = host.StateScale, Validity = host.Validity,
+            InitialStep = 0.01, MaxStep = 0.1, MaxPoints = maxPoints, StateScale = host.StateScale, Validity = host.Validity,
         };
         var curves = new List<Curve>();
         var notes = new List<string>();

@@ -102,7 +102,7 @@ public sealed class BranchCommand : IRunnerCommand
     private readonly Option<double> _to = new("--to") { Description = "Upper end of the parameter range.", Required = true };
     private readonly Option<double?> _startAt = new("--start-at") { Description = "Parameter value of the starting equilibrium (default: the model's value, clipped into the range)." };
     private readonly Option<int> _maxPoints = new("--max-points") { Description = "Largest number of points in each direction (default 2000).", DefaultValueFactory = _ => 2000 };
-    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest step as a fraction of the parameter range (default 0.02).", DefaultValueFactory = _ => 0.02 };
+    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest continuation step in the scaled arclength norm: the parameter measured in units of its range, each state variable in units of its typical change (default 0.1).", DefaultValueFactory = _ => 0.1 };
     private readonly Option<string?> _show = new("--show") { Description = "Column for the vertical axis of the diagram (a state or diagnostic column; default the first diagnostic)." };
 
     /// <inheritdoc />
@@ -129,7 +129,7 @@ public sealed class BranchCommand : IRunnerCommand
         int maxPoints = pr.GetValue(_maxPoints);
         if (maxPoints < 2 || maxPoints > 1_000_000) throw new ConfigurationException($"--max-points = {maxPoints}: allowed 2 to 1000000");
         double maxStep = pr.GetValue(_maxStep);
-        if (!(maxStep > 0 && maxStep <= 0.5)) throw new ConfigurationException($"--max-step = {maxStep}: allowed > 0 and <= 0.5 (fraction of the range)");
+        if (!(maxStep > 0 && maxStep <= 1)) throw new ConfigurationException($"--max-step = {maxStep}: allowed > 0 and <= 1 (scaled arclength)");
 
         var probe = ModelHosts.Create(pr.GetValue(_model.Model)!, settings);
         int k = ModelChoiceOptions.ParameterIndex(probe, pr.GetValue(_vary)!, "--vary");
@@ -193,7 +193,8 @@ public sealed class BranchCommand : IRunnerCommand
         {
             stdout.WriteLine($"{host.Name}: branch in {paramName} over [{from.ToString("G6", CultureInfo.InvariantCulture)}, {to.ToString("G6", CultureInfo.InvariantCulture)}], {branch.Points.Count} points, start at {startAt.ToString("G6", CultureInfo.InvariantCulture)}");
             var rows = new List<string[]> { new[] { "#", "kind", paramName, "residual", "period", "note" } };
-            foreach (var (s, label) in BranchFigure.Labelled(branch.SpecialPoints))
+            var shown = new HashSet<string>();
+            foreach (var (s, label) in BranchFigure.Labelled(branch.SpecialPoints).Where(x => shown.Add(x.Label)))
                 rows.Add([label, BranchTables.KindName(s.Kind), s.Parameter.ToString("G10", CultureInfo.InvariantCulture), s.Residual.ToString("G2", CultureInfo.InvariantCulture),
                     s.Period is { } per ? per.ToString("G5", CultureInfo.InvariantCulture) : "", s.Description]);
             if (rows.Count > 1) TextTable.Write(stdout, rows); else stdout.WriteLine("  no special points in range");

@@ -12,13 +12,16 @@ namespace Thermostrat.Runner.Output;
 /// </summary>
 internal static class BranchFigure
 {
-    /// <summary>Labels of the special points (End excluded), numbered within each kind: F1, F2, H1, C1, ...</summary>
+    /// <summary>Labels of the special points (End excluded), numbered within each kind: F1, F2, H1, C1, ...; a point found twice shares its label.</summary>
     public static List<(SpecialPoint Point, string Label)> Labelled(IEnumerable<SpecialPoint> specials)
     {
         var counts = new Dictionary<string, int>();
         var result = new List<(SpecialPoint, string)>();
         foreach (var s in specials.Where(s => s.Kind != SpecialPointKind.End))
         {
+            // The same point found twice (from both sides of a turn) keeps one label.
+            var twin = result.FirstOrDefault(r => r.Item1.Kind == s.Kind && SamePoint(r.Item1, s));
+            if (twin.Item2 is not null) { result.Add((s, twin.Item2)); continue; }
             string prefix = s.Kind switch
             {
                 SpecialPointKind.Fold => "F",
@@ -33,6 +36,16 @@ internal static class BranchFigure
             result.Add((s, prefix + counts[prefix]));
         }
         return result;
+    }
+
+    private static bool SamePoint(SpecialPoint a, SpecialPoint b)
+    {
+        double scale = Math.Max(1e-300, Math.Max(Math.Abs(a.Parameter), Math.Abs(b.Parameter)));
+        if (Math.Abs(a.Parameter - b.Parameter) > 1e-8 * Math.Max(1, scale)) return false;
+        if ((a.SecondParameter ?? 0) != (b.SecondParameter ?? 0) && Math.Abs((a.SecondParameter ?? 0) - (b.SecondParameter ?? 0)) > 1e-8) return false;
+        for (int i = 0; i < Math.Min(a.State.Length, b.State.Length); i++)
+            if (Math.Abs(a.State[i] - b.State[i]) > 1e-6 * Math.Max(1, Math.Abs(a.State[i]))) return false;
+        return true;
     }
 
     private static MarkerShape Symbol(SpecialPointKind k) => k switch
@@ -84,15 +97,22 @@ internal static class BranchFigure
             if (!stable && !unstableLegend) { line.LegendText = "unstable"; unstableLegend = true; }
             runStart = i;
         }
+        var placed = new List<(double X, double Y)>();
+        double xSpan = Math.Max(1e-300, pts.Max(q => q.Parameter) - pts.Min(q => q.Parameter));
+        var drawn = new HashSet<string>();
         foreach (var (s, label) in Labelled(branch.SpecialPoints))
         {
+            if (!drawn.Add(label)) continue;
             double y = Y(s.State, s.Parameter);
-            var m = plt.Add.Marker(s.Parameter, y, Symbol(s.Kind), 13, Colors.Black);
+            plt.Add.Marker(s.Parameter, y, Symbol(s.Kind), 13, Colors.Black);
             var t = plt.Add.Text(label, s.Parameter, y);
             t.LabelFontSize = 14;
             t.LabelBold = true;
+            // Labels of points that nearly coincide are stacked instead of overprinted.
+            int near = placed.Count(q => Math.Abs(q.X - s.Parameter) < 0.02 * xSpan);
+            placed.Add((s.Parameter, y));
             t.OffsetX = 8;
-            t.OffsetY = -8;
+            t.OffsetY = -8 - 17 * near;
         }
         if (branch.StartIndex >= 0 && branch.StartIndex < pts.Count)
         {
