@@ -91,7 +91,7 @@ public sealed class RunCommand : IRunnerCommand
 
         if (!quiet)
         {
-            stdout.WriteLine($"{(settings.Description.Length > 0 ? settings.Description : "run")}: {settings.Run.DurationYears.ToString("G6", CultureInfo.InvariantCulture)} years from " +
+            stdout.WriteLine($"{(scenario is null ? "built-in defaults" : Path.GetFileNameWithoutExtension(scenario))}: {settings.Run.DurationYears.ToString("G6", CultureInfo.InvariantCulture)} years from " +
                              $"{settings.Run.StartAgeKa.ToString("G6", CultureInfo.InvariantCulture)} ka, {summary.Rows} rows, {summary.AcceptedSteps} steps ({summary.FinalMethod}), {summary.WallSeconds:F2} s");
             foreach (var m in summary.MethodSwitches) stdout.WriteLine("  integrator: " + m);
             PrintEnd(stdout, sink);

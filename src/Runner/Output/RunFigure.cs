@@ -18,7 +18,7 @@ internal static class RunFigure
     public static void Draw(string path, IReadOnlyList<ColumnSpec> columns, List<double[]> rows, double startAgeKa, string description)
     {
         var names = columns.Select(c => c.Name).ToList();
-        bool byAge = startAgeKa > 0 || (rows.Count > 1 && rows[^1][names.IndexOf("time_yr")] >= 20000);
+        bool byAge = startAgeKa > 0;
         int xi = byAge ? names.IndexOf("age_ka") : names.IndexOf("time_yr");
         var x = rows.Select(r => r[xi]).ToArray();
         lock (typeof(Figures)) Fonts.Default = "DejaVu Sans";
