@@ -134,9 +134,20 @@ internal sealed class ParquetRowSink(string path, Dictionary<string, string> met
     public IReadOnlyList<ColumnSpec> Columns { get; private set; } = [];
     public List<double[]> Kept { get; } = [];
 
+    private (int Index, string Name, double Min, double Max, string Unit)[] _ranges = [];
+    private int _timeColumn = -1;
+
     public void Begin(IReadOnlyList<ColumnInfo> columns)
     {
         Columns = columns.Select(c => new ColumnSpec(c.Name, c.Unit, c.Meaning)).ToList();
+        _timeColumn = columns.ToList().FindIndex(c => c.Name == "time_yr");
+        // State temperatures and salinities must stay where the equation of state is valid; a run
+        // that leaves that range has left the model's physics and is stopped with a diagnosis.
+        _ranges = columns.Select((c, i) => (c, i)).Where(x => x.c.Kind == "state" && x.c.Unit is "degC" or "g kg-1")
+            .Select(x => x.c.Unit == "degC"
+                ? (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinTemperature, Model.Seawater.SeawaterRange.MaxTemperature, "°C")
+                : (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinSalinity, Model.Seawater.SeawaterRange.MaxSalinity, "g/kg"))
+            .ToArray();
         _writer = ParquetTableWriter.Create(path, Columns, meta);
     }
 
@@ -144,6 +155,12 @@ internal sealed class ParquetRowSink(string path, Dictionary<string, string> met
 
     public void Write(ReadOnlySpan<double> row)
     {
+        foreach (var (i, name, min, max, unit) in _ranges)
+            if (!(row[i] >= min && row[i] <= max))
+                throw new RunFailedException(
+                    $"{name} = {row[i].ToString("G6", CultureInfo.InvariantCulture)} {unit} at year {(_timeColumn >= 0 ? row[_timeColumn] : double.NaN).ToString("G8", CultureInfo.InvariantCulture)} " +
+                    $"left the equation of state's range {min.ToString(CultureInfo.InvariantCulture)} to {max.ToString(CultureInfo.InvariantCulture)} {unit}; the run was stopped and no output was written " +
+                    "(the parameters drive the model outside its physics; check the heat or freshwater fluxes).");
         _writer!.AppendRow(row);
         bool keep = _n++ % _every == 0;
         if (keep) Kept.Add(row.ToArray());

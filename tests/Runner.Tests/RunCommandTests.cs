@@ -1,0 +1,100 @@
+using System.Text.Json;
+using Thermostrat.Model.IO;
+using Xunit;
+
+namespace Thermostrat.Runner.Tests;
+
+public sealed class RunCommandTests : IDisposable
+{
+    private readonly CliHarness _cli = new();
+
+    public void Dispose() => _cli.Dispose();
+
+    private static string Repo(string relative)
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "Thermostrat.slnx"))) dir = dir.Parent;
+        return Path.Combine(dir!.FullName, relative);
+    }
+
+    [Fact]
+    public void Short_run_streams_a_table_with_configuration_and_forcing_columns()
+    {
+        var outDir = _cli.Path_("run");
+        var (code, stdout, err) = _cli.Run("run", "--set", "Run:DurationYears=200", "--set", "Run:OutputIntervalYears=10", "--out", outDir);
+        Assert.True(code == 0, err);
+        var t = ParquetTable.Read(Path.Combine(outDir, "timeseries.parquet"));
+        Assert.Equal(21, t.RowCount);
+        foreach (var c in new[] { "time_yr", "age_ka", "sst_warm_pool_degc", "ventilation_north_sv", "co2_ppm", "insolation_cold_tongue_wm2", "low_cloud_fraction_cold_tongue" })
+            Assert.True(t.Has(c), c + " missing");
+        Assert.Equal(200, t.Doubles("time_yr")[^1], 9);
+        // age_ka = start age − time/1000 (GUIDE convention: ka before 1950, positive into the past).
+        Assert.Equal(-0.2, t.Doubles("age_ka")[^1], 9);
+        Assert.Contains("\"DurationYears\": 200", t.Metadata[ParquetTableWriter.ConfigKey]);
+        using var run = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "run.json")));
+        Assert.True(run.RootElement.GetProperty("integration").GetProperty("accepted_steps").GetInt64() > 0);
+        Assert.True(File.Exists(Path.Combine(outDir, "timeseries.png")));
+        Assert.Contains("wrote", stdout);
+    }
+
+    [Fact]
+    public void Shipped_scenarios_all_load_and_validate()
+    {
+        // Each shipped scenario must pass configuration checks (a typo in a shipped file is a defect).
+        foreach (var file in Directory.GetFiles(Repo("scenarios"), "*.json"))
+        {
+            var s = Configuration.ConfigLoader.Load<Configuration.Settings>(new Configuration.ConfigRequest { ScenarioFile = file, Environment = new Dictionary<string, string>() });
+            Assert.False(string.IsNullOrWhiteSpace(s.Description), Path.GetFileName(file) + " must say what it tests");
+            Assert.Contains("Invented scenario", s.Description);
+        }
+    }
+
+    [Theory]
+    [InlineData("unknown process", "Model:Processes:LowClouds:Enabled=false", "did you mean 'Model:Processes:LowCloud'")]
+    [InlineData("negative area", "Model:Boxes:ColdTongue:Area_m2=-5", "Model:Boxes:ColdTongue:Area_m2 = -5")]
+    [InlineData("latitude", "Model:Boxes:North:NorthDeg=95", "Model:Boxes:North:NorthDeg = 95")]
+    [InlineData("schedule after the end", "Model:Forcing:Freshwater:North:Shape=Step", "StartYear")]
+    public void Bad_model_configuration_exits_2_with_no_output(string what, string set, string expected)
+    {
+        var outDir = _cli.Path_("bad");
+        var args = new List<string> { "run", "--set", "Run:DurationYears=100", "--set", set, "--out", outDir };
+        if (what == "schedule after the end") { args.Insert(3, "--set"); args.Insert(4, "Model:Forcing:Freshwater:North:StartYear=500"); args.Insert(5, "--set"); args.Insert(6, "Model:Forcing:Freshwater:North:Rate_Sv=0.1"); }
+        var (code, _, err) = _cli.Run([.. args]);
+        Assert.True(code == 2, $"{what}: exit {code}, {err}");
+        Assert.Contains(expected, err);
+        Assert.False(Directory.Exists(outDir));
+        Assert.Empty(Directory.GetDirectories(_cli.Dir));
+    }
+
+    [Fact]
+    public void Forcing_file_with_a_gap_is_refused()
+    {
+        var csv = _cli.Path_("co2.csv");
+        File.WriteAllText(csv, "age_ka,co2_ppm\n0,280\n1,\n2,270\n");
+        var scen = _cli.Path_("s.json");
+        File.WriteAllText(scen, """{ "Description": "test", "Run": { "DurationYears": 100 }, "Model": { "Forcing": { "Co2": { "File": "co2.csv" } } } }""");
+        var (code, _, err) = _cli.Run("run", scen, "--out", _cli.Path_("gap"));
+        Assert.Equal(2, code);
+        Assert.Contains("co2.csv", err);
+        Assert.False(Directory.Exists(_cli.Path_("gap")));
+    }
+
+    [Fact]
+    public void A_run_leaving_the_equation_of_state_range_exits_1_with_the_diagnosis_and_no_output()
+    {
+        // Surface heat gain with no damping at all (loss −500 W/m², no feedback, no atmospheric
+        // export) heats the boxes without bound; the run must stop once a temperature leaves the
+        // equation of state's range (−2…40 °C, TEOS-10 funnel), not write hundreds of degrees.
+        var outDir = _cli.Path_("blowup");
+        var (code, _, err) = _cli.Run("run", "--set", "Run:DurationYears=20000",
+            "--set", "Model:Processes:AirSeaExchange:Tropical:Feedback_WmK=0", "--set", "Model:Processes:AirSeaExchange:Tropical:Loss_Wm2=-500",
+            "--set", "Model:Processes:AirSeaExchange:Extratropical:Feedback_WmK=0", "--set", "Model:Processes:AirSeaExchange:Extratropical:Loss_Wm2=-500",
+            "--set", "Model:Processes:AtmosphericTransport:ExtratropicalLoss_WmK=0", "--set", "Model:Processes:AtmosphericTransport:TropicalExchange_WmK=0",
+            "--out", outDir);
+        Assert.Equal(1, code);
+        Assert.StartsWith("run failed:", err);
+        Assert.Contains("left the equation of state's range -2 to 40 °C", err);
+        Assert.False(Directory.Exists(outDir));
+        Assert.Empty(Directory.GetDirectories(_cli.Dir));
+    }
+}
