@@ -10,21 +10,19 @@ namespace Thermostrat.Model.Physics;
 public static class SmoothFunctions
 {
     /// <summary>
-    /// Softplus ramp w·ln(1 + exp(x/w)): ≈ max(x, 0) away from |x| ≲ w, smooth, positive, slope in (0, 1);
-    /// equals w·ln 2 at x = 0. Evaluated without overflow for any x.
+    /// Hyperbolic ramp ½(x + √(x² + w²)): ≈ max(x, 0) away from |x| ≲ w, smooth (C∞), positive, slope in (0, 1),
+    /// equal to w/2 at x = 0 and within w²/(4|x|) of max(x, 0) elsewhere. One square root (a softplus would cost
+    /// an exponential and a logarithm on the hot path).
     /// </summary>
     /// <param name="x">Argument.</param>
     /// <param name="width">Width w of the smooth corner, &gt; 0, in the unit of <paramref name="x"/>.</param>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    public static T Ramp<T>(T x, T width) where T : struct, IFloatingPointIeee754<T>
-    {
-        T z = x / width;
-        return z > T.Zero ? x + width * T.LogP1(T.Exp(-z)) : width * T.LogP1(T.Exp(z));
-    }
+    public static T Ramp<T>(T x, T width) where T : struct, IFloatingPointIeee754<T> =>
+        (x + T.Sqrt(x * x + width * width)) * T.CreateTruncating(0.5);
 
     /// <summary>
     /// Smooth clamp of <paramref name="x"/> to [<paramref name="lo"/>, <paramref name="hi"/>]:
-    /// lo + Ramp(x − lo) − Ramp(x − hi); monotone, within w·ln 2 of the hard clamp.
+    /// lo + Ramp(x − lo) − Ramp(x − hi); monotone, within w/2 of the hard clamp.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public static T Clamp<T>(T x, T lo, T hi, T width) where T : struct, IFloatingPointIeee754<T> =>

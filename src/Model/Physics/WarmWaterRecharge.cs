@@ -86,7 +86,7 @@ public sealed class WarmWaterRechargeOptions : ProcessOptions
 
     /// <summary>Stress τ_R at which the recharge anomaly vanishes.</summary>
     [Parameter("N m-2", "wind stress at which the recharge anomaly vanishes (τ_R)", Source = "tuned: the default equilibrium stress, so that w = 0 there", Min = 0, Max = 0.5)]
-    public double ReferenceStress_Nm2 { get; set; } = 0.0484;
+    public double ReferenceStress_Nm2 { get; set; } = 0.0482;
 
     /// <summary>Adjustment time t_R of the warm-water volume.</summary>
     [Parameter("yr", "adjustment (recharge) time t_R of the warm-water volume", Source = "tuned: self-sustained oscillation with a period of 2–7 years (common practice: ENSO periods); Jin 1997 uses about 8 months to 1 year", Min = 0.01, Max = 100)]

@@ -103,14 +103,14 @@ public class ConservationTests
         y0[(int)Box.ColdTongue] -= 2;
         y0[(int)Box.North] += 1;
         var sink = new RecordingSink();
-        OdeSolver.Solve(m, 0, y0, 200, new SolverOptions { Method = OdeMethod.Rodas4, RelativeTolerance = 1e-10, AbsoluteTolerance = 1e-11, Output = OutputTimes.Uniform(0.05) }, sink);
+        OdeSolver.Solve(m, 0, y0, 200, new SolverOptions { Method = OdeMethod.DormandPrince54, RelativeTolerance = 1e-11, AbsoluteTolerance = 1e-12, Output = OutputTimes.Uniform(0.02) }, sink);
         double HeatContent(double[] y) { var b = m.Budgets(0, y); double h = 0; for (int i = 0; i < Boxes.Count; i++) h += b.RhoCp * b.Volume_m3[i] * y[i]; return h; }
         double Input(int k) { var b = m.Budgets(sink.Times[k], sink.States[k]); double q = 0; for (int i = 0; i < 4; i++) q += b.SurfaceHeatFlux_Wm2[i] * b.Area_m2[i]; return q * TropicalBoxModel.SecondsPerYear; }
         int n = sink.Times.Count - 1;
         Assert.Equal(0, n % 2);
         double integral = Input(0) + Input(n);
         for (int k = 1; k < n; k++) integral += (k % 2 == 1 ? 4 : 2) * Input(k);
-        integral *= 0.05 / 3;
+        integral *= 0.02 / 3;
         double change = HeatContent(sink.States[n]) - HeatContent(sink.States[0]);
         Assert.True(Math.Abs(change - integral) <= 1e-6 * Math.Abs(change), $"heat content change {change:E6} J, integrated input {integral:E6} J");
     }

@@ -123,12 +123,17 @@ internal sealed class LayoutBuilder
                 };
                 into.Add(new OptionInfo(key, text, attr?.Unit ?? "", attr?.Meaning ?? "", SourceOverride(options, prop.Name) ?? attr?.Source ?? "", parameterKeys.Contains(key)));
             }
+            else if (v is System.Collections.IDictionary dictionary)
+            {
+                foreach (System.Collections.DictionaryEntry e in dictionary)
+                    if (e.Value is { } item) CollectOptions(item, key + ":" + e.Key, into, parameterKeys);
+            }
             else if (v is System.Collections.IList list)
             {
                 for (int i = 0; i < list.Count; i++)
                     if (list[i] is { } item) CollectOptions(item, key + ":" + i.ToString(CultureInfo.InvariantCulture), into, parameterKeys);
             }
-            else if (v is not null && t.IsClass && v is not System.Collections.IDictionary)
+            else if (v is not null && t.IsClass)
             {
                 CollectOptions(v, key, into, parameterKeys);
             }

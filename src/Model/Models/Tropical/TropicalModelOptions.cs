@@ -140,16 +140,16 @@ public sealed class BoxOptions : ISelfValidating
     public static BoxOptions Defaults(Box box) => box switch
     {
         // 5°S–5°N over 80° of longitude: 4.45e13 m² × 80/360.
-        Box.WarmPool => new() { SouthDeg = -5, NorthDeg = 5, Area_m2 = 1.0e13, Thickness_m = 75, InitialTemperature_degC = 29.5, InitialSalinity_gkg = 34.4 },
+        Box.WarmPool => new() { SouthDeg = -5, NorthDeg = 5, Area_m2 = 1.0e13, Thickness_m = 75, InitialTemperature_degC = 29.5, InitialSalinity_gkg = 34.37 },
         // 3°S–3°N over 80° of longitude: 2.67e13 m² × 80/360.
         Box.ColdTongue => new() { SouthDeg = -3, NorthDeg = 3, Area_m2 = 6.0e12, Thickness_m = 75, InitialTemperature_degC = 24.8, InitialSalinity_gkg = 34.95 },
         // 35°N–60°N over 150° of longitude: 7.46e13 m² × 150/360.
         Box.North => new() { SouthDeg = 35, NorthDeg = 60, Area_m2 = 3.1e13, Thickness_m = 100, InitialTemperature_degC = 18, InitialSalinity_gkg = 35.0 },
         Box.South => new() { SouthDeg = -60, NorthDeg = -35, Area_m2 = 3.1e13, Thickness_m = 100, InitialTemperature_degC = 18, InitialSalinity_gkg = 35.0 },
         // 10°S–10°N over 160° of longitude, from the base of the surface layer (75 m) to 325 m.
-        Box.Thermocline => new() { SouthDeg = -10, NorthDeg = 10, Area_m2 = 3.9e13, Thickness_m = 250, InitialTemperature_degC = 15, InitialSalinity_gkg = 35.0 },
+        Box.Thermocline => new() { SouthDeg = -10, NorthDeg = 10, Area_m2 = 3.9e13, Thickness_m = 250, InitialTemperature_degC = 16.4, InitialSalinity_gkg = 35.0 },
         // 60°S–60°N over 160° of longitude, 325 m to about 3300 m.
-        Box.Deep => new() { SouthDeg = -60, NorthDeg = 60, Area_m2 = 2.0e14, Thickness_m = 3000, InitialTemperature_degC = 15, InitialSalinity_gkg = 35.0 },
+        Box.Deep => new() { SouthDeg = -60, NorthDeg = 60, Area_m2 = 2.0e14, Thickness_m = 3000, InitialTemperature_degC = 16.4, InitialSalinity_gkg = 35.0 },
         _ => throw new ArgumentOutOfRangeException(nameof(box), box, "not a box of the tropical model"),
     };
 }
