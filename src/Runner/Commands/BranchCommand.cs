@@ -102,7 +102,7 @@ public sealed class BranchCommand : IRunnerCommand
     private readonly Option<double> _to = new("--to") { Description = "Upper end of the parameter range.", Required = true };
     private readonly Option<double?> _startAt = new("--start-at") { Description = "Parameter value of the starting equilibrium (default: the model's value, clipped into the range)." };
     private readonly Option<int> _maxPoints = new("--max-points") { Description = "Largest number of points in each direction (default 2000).", DefaultValueFactory = _ => 2000 };
-    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest continuation step in the scaled arclength norm: the parameter measured in units of its range, each state variable in units of its typical change (default 0.1).", DefaultValueFactory = _ => 0.1 };
+    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest continuation step in the scaled arclength norm: the parameter measured in units of its range, each state variable in units of its typical change (default 0.25).", DefaultValueFactory = _ => 0.25 };
     private readonly Option<string?> _show = new("--show") { Description = "Column for the vertical axis of the diagram (a state or diagnostic column; default the first diagnostic)." };
 
     /// <inheritdoc />
