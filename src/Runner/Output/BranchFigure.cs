@@ -112,7 +112,7 @@ internal static class BranchFigure
             int near = placed.Count(q => Math.Abs(q.X - s.Parameter) < 0.02 * xSpan);
             placed.Add((s.Parameter, y));
             t.OffsetX = 8;
-            t.OffsetY = -8 - 17 * near;
+            t.OffsetY = -8 - 21 * near;
         }
         if (branch.StartIndex >= 0 && branch.StartIndex < pts.Count)
         {
