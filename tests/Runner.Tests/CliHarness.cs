@@ -17,6 +17,14 @@ public sealed class CliHarness : IDisposable
 
     public string Path_(string name) => Path.Combine(Dir, name);
 
+    /// <summary>A path inside the repository (found from the test binary's folder).</summary>
+    public static string Repo(string relative)
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "Thermostrat.slnx"))) dir = dir.Parent;
+        return Path.Combine(dir?.FullName ?? throw new DirectoryNotFoundException("repository root (Thermostrat.slnx) not found above " + AppContext.BaseDirectory), relative);
+    }
+
     public void Dispose()
     {
         try { Directory.Delete(Dir, recursive: true); } catch (IOException) { }

@@ -10,13 +10,6 @@ public sealed class RunCommandTests : IDisposable
 
     public void Dispose() => _cli.Dispose();
 
-    private static string Repo(string relative)
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "Thermostrat.slnx"))) dir = dir.Parent;
-        return Path.Combine(dir!.FullName, relative);
-    }
-
     [Fact]
     public void Short_run_streams_a_table_with_configuration_and_forcing_columns()
     {
@@ -41,7 +34,7 @@ public sealed class RunCommandTests : IDisposable
     public void Shipped_scenarios_all_load_and_validate()
     {
         // Each shipped scenario must pass configuration checks (a typo in a shipped file is a defect).
-        foreach (var file in Directory.GetFiles(Repo("scenarios"), "*.json"))
+        foreach (var file in Directory.GetFiles(CliHarness.Repo("scenarios"), "*.json"))
         {
             var s = Configuration.ConfigLoader.Load<Configuration.Settings>(new Configuration.ConfigRequest { ScenarioFile = file, Environment = new Dictionary<string, string>() });
             Assert.False(string.IsNullOrWhiteSpace(s.Description), Path.GetFileName(file) + " must say what it tests");
@@ -105,13 +98,6 @@ public sealed class DescribeCommandTests : IDisposable
 
     public void Dispose() => _cli.Dispose();
 
-    private static string Repo(string relative)
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "Thermostrat.slnx"))) dir = dir.Parent;
-        return Path.Combine(dir!.FullName, relative);
-    }
-
     [Theory]
     [InlineData("tropical", "docs/model.md")]
     [InlineData("stommel", "docs/reference-models/stommel.md")]
@@ -122,7 +108,7 @@ public sealed class DescribeCommandTests : IDisposable
         var fresh = _cli.Path_(model + ".md");
         var (code, _, err) = _cli.Run("describe", "--model", model, "--markdown", fresh);
         Assert.True(code == 0, err);
-        Assert.True(File.ReadAllText(Repo(doc)) == File.ReadAllText(fresh),
+        Assert.True(File.ReadAllText(CliHarness.Repo(doc)) == File.ReadAllText(fresh),
             $"{doc} is out of date: regenerate it with `thermostrat describe --model {model} --markdown {doc}`");
     }
 

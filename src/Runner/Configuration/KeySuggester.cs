@@ -10,26 +10,13 @@ public static class KeySuggester
         int bestD = int.MaxValue;
         foreach (var c in candidates)
         {
-            int d = Distance(typed.ToLowerInvariant(), c.ToLowerInvariant());
+            int d = Thermostrat.Model.Analysis.EditDistance.Levenshtein(typed, c, ignoreCase: true);
             if (d < bestD) { bestD = d; best = c; }
         }
         if (best is null) return null;
         return bestD <= Math.Max(2, typed.Length / 2) ? best : null;
     }
 
-    /// <summary>Levenshtein edit distance.</summary>
-    public static int Distance(string a, string b)
-    {
-        var prev = new int[b.Length + 1];
-        var cur = new int[b.Length + 1];
-        for (int j = 0; j <= b.Length; j++) prev[j] = j;
-        for (int i = 1; i <= a.Length; i++)
-        {
-            cur[0] = i;
-            for (int j = 1; j <= b.Length; j++)
-                cur[j] = Math.Min(Math.Min(cur[j - 1] + 1, prev[j] + 1), prev[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1));
-            (prev, cur) = (cur, prev);
-        }
-        return prev[b.Length];
-    }
+    /// <summary>Levenshtein edit distance (the model library's, case-sensitive).</summary>
+    public static int Distance(string a, string b) => Thermostrat.Model.Analysis.EditDistance.Levenshtein(a, b);
 }
