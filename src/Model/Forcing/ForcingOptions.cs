@@ -13,8 +13,8 @@ public sealed class ForcingOptions : ISelfValidating
     public bool SeasonalCycle { get; set; }
 
     /// <summary>Spacing of the precomputed annual-mean insolation grid (interpolated by cubic splines between nodes).</summary>
-    [Parameter("yr", "spacing of the precomputed annual-mean insolation grid", Source = "common practice (annual means depend on eccentricity and obliquity only, periods ≥ 29 kyr; 1 kyr gives ≥ 29 nodes per cycle)", Min = 1, Max = 10000)]
-    public double AnnualGridSpacing_yr { get; set; } = 1000.0;
+    [Parameter("yr", "spacing of the precomputed annual-mean insolation grid", Source = "common practice (annual means depend on eccentricity and obliquity only, periods ≥ 29 kyr; 2 kyr gives ≥ 14 nodes per cycle, spline error < 1e-3 W m-2, checked in the tests)", Min = 1, Max = 10000)]
+    public double AnnualGridSpacing_yr { get; set; } = 2000.0;
 
     /// <summary>Spacing of the precomputed seasonal-insolation grid (harmonic coefficients splined between nodes).</summary>
     [Parameter("yr", "spacing of the precomputed seasonal-insolation grid", Source = "common practice (19-kyr precession: 250 yr gives ≈ 76 nodes per cycle)", Min = 1, Max = 10000)]

@@ -20,7 +20,8 @@ namespace Thermostrat.Model.Forcing;
 public sealed class OrbitalInsolationForcing
 {
     private readonly OrbitalForcingSeries _series;
-    private readonly int _bands, _harmonics;
+    private readonly int _bands, _harmonics, _channels;
+    private readonly int[] _channelOfBand;
 
     /// <summary>Precomputes the insolation of <paramref name="bands"/>.</summary>
     /// <param name="orbit">Orbit source (a fast interpolant is best: it is sampled at every node).</param>
@@ -40,7 +41,18 @@ public sealed class OrbitalInsolationForcing
         _bands = bands.Count;
         _harmonics = seasonal ? harmonics : 0;
         Seasonal = seasonal;
-        var bandArray = bands.ToArray();
+        // Annual means are symmetric between hemispheres (exact geometry): a band and its mirror image share one channel.
+        _channelOfBand = new int[_bands];
+        var unique = new List<(double SouthDeg, double NorthDeg)>();
+        for (int b = 0; b < _bands; b++)
+        {
+            var (s, n) = bands[b];
+            int found = unique.FindIndex(u => (u.SouthDeg == s && u.NorthDeg == n) || (!seasonal && u.SouthDeg == -n && u.NorthDeg == -s));
+            if (found < 0) { unique.Add((s, n)); found = unique.Count - 1; }
+            _channelOfBand[b] = found;
+        }
+        _channels = unique.Count;
+        var bandArray = unique.ToArray();
         int perBand = 2 * _harmonics + 1;
         var names = new List<string>();
         foreach (var (s, n) in bandArray)
@@ -107,20 +119,19 @@ public sealed class OrbitalInsolationForcing
     public void At(double yearsSince1950, Span<double> destination)
     {
         double t = Math.Clamp(yearsSince1950, _series.StartYears, _series.EndYears);
-        int channels = _bands * (2 * _harmonics + 1);
-        Span<double> c = stackalloc double[channels];
+        int perBand = 2 * _harmonics + 1;
+        Span<double> c = stackalloc double[_channels * perBand];
         _series.ValuesAt(t, c);
         if (_harmonics == 0)
         {
-            c[.._bands].CopyTo(destination);
+            for (int b = 0; b < _bands; b++) destination[b] = c[_channelOfBand[b]];
             return;
         }
         double x = yearsSince1950 - Math.Floor(yearsSince1950);
         (double s1, double c1) = Math.SinCos(2.0 * Math.PI * x);
-        int perBand = 2 * _harmonics + 1;
         for (int b = 0; b < _bands; b++)
         {
-            int o = b * perBand;
+            int o = _channelOfBand[b] * perBand;
             double q = c[o], sk = 0.0, ck = 1.0;
             for (int k = 1; k <= _harmonics; k++)
             {

@@ -43,7 +43,7 @@ public class ForcingTests : IDisposable
     public void AnnualMeansMatchTheOrbitalModuleAndTheSeasonalMeanAveragesToThem()
     {
         var orbit = new InterpolatedOrbit(Berger1978Orbit.Shared, -300000, 0, 200);
-        var annual = new OrbitalInsolationForcing(orbit, -300000, 0, 1000, Bands, seasonal: false, harmonics: 0, Insolation.DefaultSolarConstantWm2, parallel: false);
+        var annual = new OrbitalInsolationForcing(orbit, -300000, 0, 2000, Bands, seasonal: false, harmonics: 0, Insolation.DefaultSolarConstantWm2, parallel: false);
         var seasonal = new OrbitalInsolationForcing(orbit, -300000, 0, 1000, Bands, seasonal: true, harmonics: 8, Insolation.DefaultSolarConstantWm2, parallel: false);
         var qa = new double[4];
         var qs = new double[4];
@@ -61,7 +61,7 @@ public class ForcingTests : IDisposable
             for (int b = 0; b < 4; b++)
             {
                 double exact = Insolation.BandAnnualMean(o, Bands[b].Item1, Bands[b].Item2);
-                Assert.Equal(exact, qa[b], 1e-4); // spline between 1-kyr nodes: far below 1e-4 W/m²
+                Assert.Equal(exact, qa[b], 1e-3); // spline between 2-kyr nodes (the default spacing)
                 // Time mean over the calendar year of the seasonal series (the calendar year's mean equals the orbit mean within 0.3 W/m²).
                 Assert.Equal(exact, mean[b], 0.3);
             }
