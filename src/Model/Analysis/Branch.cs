@@ -140,6 +140,13 @@ public sealed record SpecialPoint
     /// <summary>Angular frequency ω at a Hopf point (radians per time unit); null otherwise.</summary>
     public double? Frequency { get; init; }
 
+    /// <summary>
+    /// First Lyapunov coefficient l1 at a Hopf point (Kuznetsov, Elements of Applied Bifurcation Theory, eq. 3.20,
+    /// eigenvectors normalised ⟨q, q⟩ = ⟨p, q⟩ = 1): negative for a supercritical Hopf point (a stable oscillation of amplitude ∝ √|Δp| is born), positive for a
+    /// subcritical one (an unstable oscillation; the state may jump). Null otherwise or if it could not be computed.
+    /// </summary>
+    public double? FirstLyapunovCoefficient { get; init; }
+
     /// <summary>Period 2π/ω of the oscillation born at a Hopf point (system time unit); null otherwise.</summary>
     public double? Period => Frequency is double w && w > 0 ? 2 * Math.PI / w : null;
 

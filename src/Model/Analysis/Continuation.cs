@@ -63,7 +63,7 @@ public static class Continuation
         var u0 = new double[n + 1];
         polished.State.CopyTo(u0);
         u0[n] = parameters[parameterIndex];
-        if (CheckStart(tracer, u0, options) is string bad)
+        if (CheckStart(u0, parameters, options) is string bad)
             throw new ArgumentException($"The starting equilibrium is outside the allowed range: {bad}", nameof(startState));
         var t0 = new double[n + 1];
         if (!tracer.Stepper.InitialTangent(u0, n, t0, out int det))
@@ -84,7 +84,7 @@ public static class Continuation
         }
     }
 
-    private static string? CheckStart(EquilibriumTracer tracer, double[] u0, ContinuationOptions o)
+    private static string? CheckStart(double[] u0, ReadOnlySpan<double> parameters, ContinuationOptions o)
     {
         int n = u0.Length - 1;
         for (int i = 0; i < n; i++)
@@ -92,6 +92,6 @@ public static class Continuation
             if (o.StateMin is not null && u0[i] < o.StateMin[i]) return $"state variable {i} = {u0[i]:G6} is below StateMin = {o.StateMin[i]:G6}.";
             if (o.StateMax is not null && u0[i] > o.StateMax[i]) return $"state variable {i} = {u0[i]:G6} is above StateMax = {o.StateMax[i]:G6}.";
         }
-        return null;
+        return o.Validity is null ? null : o.Validity(u0.AsSpan(0, n), parameters);
     }
 }

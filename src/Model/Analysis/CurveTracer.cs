@@ -101,9 +101,11 @@ internal abstract class CurveTracer
         var trace = new HalfTrace();
         var t0 = (double[])start.T.Clone();
         Vec.Scale(t0, direction);
+        // Reversing the tangent reverses the border row, and with it the sign of the determinant test function.
+        int detSign = direction < 0 ? -start.DetSign : start.DetSign;
         var first = new CurveNode
         {
-            U = start.U, T = t0, TIn = t0, DetSign = start.DetSign, DetSignIn = start.DetSign,
+            U = start.U, T = t0, TIn = t0, DetSign = detSign, DetSignIn = detSign,
             Data = start.Data, DataIn = start.Data, Arclength = 0,
         };
         trace.Nodes.Add(first);
@@ -128,7 +130,7 @@ internal abstract class CurveTracer
             double c = Vec.Dot(row, prev.U) + ds;
             var outcome = Stepper.Correct(u, row, c, ds);
             bool ok = outcome.Converged;
-            int detSign = 0;
+            detSign = 0;
             if (ok)
             {
                 ok = Stepper.Tangent(u, row, t1, out detSign, evaluate: false);

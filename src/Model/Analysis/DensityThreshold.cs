@@ -62,7 +62,7 @@ public static class DensityThreshold
             s => eos.Density(s, t1, p1) * eos.HalineContraction(s, t1, p1),
             s1, SeawaterRange.MinSalinity, SeawaterRange.MaxSalinity, options);
         ThresholdChange salinityChange = salinityRoot.Found
-            ? ThresholdChange.Solved(salinityRoot.Value - s1, salinityRoot.Iterations)
+            ? Converged(salinityRoot, s1, "salinity", options)
             : ThresholdChange.None(Describe("salinity", "g/kg", SeawaterRange.MinSalinity, SeawaterRange.MaxSalinity,
                 $"at its own temperature {Fmt(t1)} °C", salinityRoot, rho2));
 
@@ -71,7 +71,7 @@ public static class DensityThreshold
             t => -eos.Density(s1, t, p1) * eos.ThermalExpansion(s1, t, p1),
             t1, SeawaterRange.MinTemperature, SeawaterRange.MaxTemperature, options);
         ThresholdChange temperatureChange = temperatureRoot.Found
-            ? ThresholdChange.Solved(temperatureRoot.Value - t1, temperatureRoot.Iterations)
+            ? Converged(temperatureRoot, t1, "temperature", options)
             : ThresholdChange.None(Describe("temperature", "°C", SeawaterRange.MinTemperature, SeawaterRange.MaxTemperature,
                 $"at its own salinity {Fmt(s1)} g/kg", temperatureRoot, rho2));
 
@@ -130,6 +130,12 @@ public static class DensityThreshold
         return ThresholdChange.Solved(thickness_m * (salinity / newSalinity - 1.0), 0);
     }
 
+    private static ThresholdChange Converged(RootSearch root, double start, string quantity, DensityThresholdOptions options) =>
+        root.Converged
+            ? ThresholdChange.Solved(root.Value - start, root.Iterations)
+            : ThresholdChange.None(string.Create(CultureInfo.InvariantCulture,
+                $"the {quantity} iteration did not reach the density tolerance {options.DensityTolerance_kgm3} kg/m³ within MaxIterations = {options.MaxIterations}."));
+
     private static void CheckThickness(double layerThickness_m)
     {
         if (!(layerThickness_m > 0) || !double.IsFinite(layerThickness_m))
@@ -147,7 +153,7 @@ public static class DensityThreshold
     private static string Fmt(double value) => value.ToString("0.######", CultureInfo.InvariantCulture);
 
     /// <summary>Outcome of a root search: the root nearest the start, or the range of f seen.</summary>
-    internal readonly record struct RootSearch(bool Found, double Value, int Iterations, double MinValue, double MaxValue);
+    internal readonly record struct RootSearch(bool Found, double Value, int Iterations, double MinValue, double MaxValue, bool Converged = true);
 
     /// <summary>
     /// The root of f in [lo, hi] nearest x0. f' is given analytically; the interval is cut into
@@ -179,7 +185,7 @@ public static class DensityThreshold
         cuts.Add(hi);
 
         double min = double.PositiveInfinity, max = double.NegativeInfinity;
-        bool found = false;
+        bool found = false, bestConverged = true;
         double best = double.NaN;
         int bestIterations = 0;
         for (int piece = 0; piece + 1 < cuts.Count; piece++)
@@ -189,15 +195,16 @@ public static class DensityThreshold
             min = Math.Min(min, Math.Min(fa, fb));
             max = Math.Max(max, Math.Max(fa, fb));
             if (Math.Sign(fa) * Math.Sign(fb) > 0) continue; // monotonic piece without a root
-            (double root, int iterations) = SafeguardedNewton(f, df, a, b, fa, Math.Clamp(x0, a, b), options);
+            (double root, int iterations, bool converged) = SafeguardedNewton(f, df, a, b, fa, Math.Clamp(x0, a, b), options);
             if (!found || Math.Abs(root - x0) < Math.Abs(best - x0))
             {
                 found = true;
                 best = root;
                 bestIterations = iterations;
+                bestConverged = converged;
             }
         }
-        return new RootSearch(found, best, bestIterations, min, max);
+        return new RootSearch(found, best, bestIterations, min, max, bestConverged);
     }
 
     private static double TurningPoint(Func<double, double> df, double a, double b, double da)
@@ -212,23 +219,23 @@ public static class DensityThreshold
     }
 
     /// <summary>Newton's method kept inside the bracket [a, b] (f(a), f(b) of opposite sign or zero), bisecting when a step leaves it.</summary>
-    private static (double Root, int Iterations) SafeguardedNewton(Func<double, double> f, Func<double, double> df,
+    private static (double Root, int Iterations, bool Converged) SafeguardedNewton(Func<double, double> f, Func<double, double> df,
         double a, double b, double fa, double x, DensityThresholdOptions options)
     {
-        if (fa == 0) return (a, 0);
+        if (fa == 0) return (a, 0, true);
         double tol = options.DensityTolerance_kgm3;
         for (int iteration = 1; iteration <= options.MaxIterations; iteration++)
         {
             double fx = f(x);
-            if (Math.Abs(fx) <= tol) return (x, iteration);
+            if (Math.Abs(fx) <= tol) return (x, iteration, true);
             // Keep the bracket: the end with f of the sign of fa moves to x, or the other end does.
             if (Math.Sign(fx) == Math.Sign(fa)) { a = x; fa = fx; } else b = x;
             double d = df(x);
             double next = d != 0 ? x - fx / d : double.NaN;
             if (!(next > Math.Min(a, b) && next < Math.Max(a, b))) next = 0.5 * (a + b);
-            if (Math.Abs(b - a) <= 4 * double.Epsilon + 1e-15 * Math.Abs(x)) return (next, iteration);
+            if (Math.Abs(b - a) <= 4 * double.Epsilon + 1e-15 * Math.Abs(x)) return (next, iteration, true); // bracket at rounding level
             x = next;
         }
-        return (x, options.MaxIterations);
+        return (x, options.MaxIterations, false);
     }
 }

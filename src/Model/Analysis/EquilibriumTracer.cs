@@ -250,10 +250,21 @@ internal sealed class EquilibriumTracer : CurveTracer
         var x = u.AsSpan(0, n + 1);
         double w = Math.Abs(u[n + 1]);
         if (!outcome.Converged || !(w > 0) || !OnSegment(x, a, b)) return null;
+        _d.P[_k] = u[n];
+        // a + ib belongs to iω; for ω < 0 its conjugate a − ib belongs to i|ω|.
+        var imag = u.AsSpan(2 * n + 2, n).ToArray();
+        if (u[n + 1] < 0) Vec.Scale(imag, -1);
+        double? l1 = HopfCoefficient.FirstLyapunov(_d, u.AsSpan(0, n), w, u.AsSpan(n + 2, n), imag);
+        string kind = l1 switch
+        {
+            < 0 => $" (supercritical, l1 = {l1:G4}: a stable oscillation is born)",
+            > 0 => $" (subcritical, l1 = {l1:G4}: an unstable oscillation; expect a jump)",
+            _ => "",
+        };
         return Make(SpecialPointKind.Hopf, x, outcome.Residual, true, outcome.Iterations,
             a.Arclength + direction * Stepper.Distance(x, a.U),
-            $"Hopf point at {_parameterName} = {u[n]:G10}: eigenvalues ±{w:G6}i cross the imaginary axis; oscillations of period {2 * Math.PI / w:G6} are born.",
-            w);
+            $"Hopf point at {_parameterName} = {u[n]:G10}: eigenvalues ±{w:G6}i cross the imaginary axis; oscillations of period {2 * Math.PI / w:G6} are born{kind}.",
+            w) with { FirstLyapunovCoefficient = l1 };
     }
 
     /// <summary>

@@ -19,8 +19,14 @@ public sealed record RampOptions
     /// <summary>Time between stored samples; default: the ramp duration / 1000.</summary>
     public double? SampleInterval { get; init; }
 
-    /// <summary>Integrator; <see cref="TransientIntegrators.Default"/> when null.</summary>
+    /// <summary>
+    /// Integrator called once per sample interval; when null the whole ramp is one solve of the library's
+    /// <see cref="Numerics.Ode.OdeSolver"/> with <see cref="Solver"/> settings and output at the sample times.
+    /// </summary>
     public TransientIntegrator? Integrator { get; init; }
+
+    /// <summary>Solver settings used when <see cref="Integrator"/> is null (their output schedule and events are replaced); default automatic method, relative tolerance 1e-8, absolute 1e-10.</summary>
+    public Numerics.Ode.SolverOptions? Solver { get; init; }
 
     /// <summary>Model time at the start of the ramp.</summary>
     public double StartTime { get; init; }
@@ -101,6 +107,26 @@ public sealed record RampComparison
 /// </summary>
 public static class RampRun
 {
+    private static readonly Numerics.Ode.SolverOptions DefaultSolver = new()
+    {
+        Method = Numerics.Ode.OdeMethod.Auto,
+        RelativeTolerance = 1e-8,
+        AbsoluteTolerance = 1e-10,
+    };
+
+    /// <summary>Collects output rows; stops recording after the first row where the stop condition holds.</summary>
+    private sealed class SampleSink(Action<double, ReadOnlySpan<double>> add, StatePredicate? stopWhen) : Numerics.Ode.IOutputSink
+    {
+        public bool Stopped { get; private set; }
+
+        public void Write(double t, ReadOnlySpan<double> y)
+        {
+            if (Stopped) return;
+            add(t, y);
+            if (stopWhen is not null && stopWhen(y)) Stopped = true;
+        }
+    }
+
     /// <summary>Runs the ramp of parameter <paramref name="parameterName"/>.</summary>
     public static RampTrajectory Run(IParametricSystem system, string parameterName, ReadOnlySpan<double> initialState, ReadOnlySpan<double> parameters, RampOptions options)
     {
@@ -133,37 +159,70 @@ public static class RampRun
         double signedRate = Math.Sign(options.EndValue - options.StartValue) * options.Rate;
         double duration = Math.Abs(options.EndValue - options.StartValue) / options.Rate;
         double dt = options.SampleInterval ?? duration / 1000;
-        var integrate = options.Integrator ?? TransientIntegrators.Default;
         var view = new ParameterOverrideSystem(system, p, parameterIndex, options.StartValue, signedRate, options.StartTime);
         int samples = (int)Math.Ceiling(duration / dt - 1e-9);
         var times = new List<double>(samples + 1);
         var values = new List<double>(samples + 1);
         var states = new List<ImmutableArray<double>>(samples + 1);
-        double t = options.StartTime;
-        times.Add(t);
-        values.Add(options.StartValue);
-        states.Add([.. state]);
+        double endTime = options.StartTime + duration;
         string message = "";
-        for (int k = 1; k <= samples; k++)
+        void Add(double time, ReadOnlySpan<double> y)
         {
-            double next = k == samples ? options.StartTime + duration : options.StartTime + k * dt;
+            times.Add(time);
+            values.Add(time >= endTime ? options.EndValue : view.RampValue(time));
+            states.Add([.. y]);
+        }
+        if (options.Integrator is TransientIntegrator integrate)
+        {
+            double t = options.StartTime;
+            Add(t, state);
+            for (int k = 1; k <= samples; k++)
+            {
+                double next = k == samples ? endTime : options.StartTime + k * dt;
+                try
+                {
+                    integrate(view, t, next, state);
+                }
+                catch (Numerics.Ode.OdeSolverException e)
+                {
+                    message = $"The integration failed between t = {t:G8} and {next:G8} ({name} ≈ {view.RampValue(t):G8}): {e.Message}";
+                    break;
+                }
+                t = next;
+                Add(t, state);
+                if (options.StopWhen is not null && options.StopWhen(state))
+                {
+                    if (k < samples) message = $"Stopped by the stop condition at t = {t:G8} ({name} = {values[^1]:G8}).";
+                    break;
+                }
+            }
+        }
+        else
+        {
+            // One solve with output at the sample times; the stop condition is a terminal event.
+            var solver = (options.Solver ?? DefaultSolver) with { Output = Numerics.Ode.OutputTimes.Uniform(dt) };
+            var sink = new SampleSink(Add, options.StopWhen);
+            var stopWhen = options.StopWhen;
+            Numerics.Ode.OdeEvent[]? events = stopWhen is null ? null :
+            [
+                new Numerics.Ode.OdeEvent { Name = "stop condition", Function = (_, y) => stopWhen(y) ? 1 : -1, Direction = Numerics.Ode.EventDirection.Rising, Terminal = true },
+            ];
             try
             {
-                integrate(view, t, next, state);
+                var result = Numerics.Ode.OdeSolver.Solve(view, options.StartTime, state, endTime, solver, sink, events);
+                if (result.Status == Numerics.Ode.SolveStatus.TerminatedByEvent)
+                {
+                    if (!sink.Stopped) { var final = result.FinalState.ToArray(); Add(result.FinalTime, final); }
+                    message = $"Stopped by the stop condition at t = {times[^1]:G8} ({name} = {values[^1]:G8}).";
+                }
+                else if (times[^1] < endTime && !sink.Stopped)
+                {
+                    Add(endTime, result.FinalState.ToArray());
+                }
             }
             catch (Numerics.Ode.OdeSolverException e)
             {
-                message = $"The integration failed between t = {t:G8} and {next:G8} ({name} ≈ {view.RampValue(t):G8}): {e.Message}";
-                break;
-            }
-            t = next;
-            times.Add(t);
-            values.Add(k == samples ? options.EndValue : view.RampValue(t));
-            states.Add([.. state]);
-            if (options.StopWhen is not null && options.StopWhen(state))
-            {
-                if (k < samples) message = $"Stopped by the stop condition at t = {t:G8} ({name} = {values[^1]:G8}).";
-                break;
+                message = $"The integration failed near t = {e.Time:G8} ({name} ≈ {view.RampValue(e.Time):G8}): {e.Message}";
             }
         }
         return new RampTrajectory

@@ -29,14 +29,15 @@ public delegate string? StateValidator(ReadOnlySpan<double> state, ReadOnlySpan<
 /// An <see cref="IOdeSystem"/> view of a parametric system with its parameters fixed at given values,
 /// optionally with one of them ramped linearly in time: p_k(t) = start + rate·(t − t0).
 /// </summary>
-/// <remarks>Keeps one parameter buffer per number type it has seen; not thread-safe (one per run).</remarks>
+/// <remarks>Keeps a parameter buffer for <see cref="double"/> and one for the last other number type; not thread-safe (one per run).</remarks>
 public sealed class ParameterOverrideSystem : IOdeSystem
 {
     private readonly IParametricSystem _inner;
     private readonly double[] _p;
     private readonly int _rampIndex;
     private readonly double _rampStart, _rampRate, _rampStartTime;
-    private object? _buffer;
+    private readonly double[] _doubles;
+    private object? _other;
 
     /// <summary>A view with all parameters fixed at <paramref name="parameters"/>.</summary>
     public ParameterOverrideSystem(IParametricSystem inner, ReadOnlySpan<double> parameters)
@@ -52,6 +53,7 @@ public sealed class ParameterOverrideSystem : IOdeSystem
             throw new ArgumentOutOfRangeException(nameof(rampIndex), rampIndex, $"The system has {inner.ParameterCount} parameters.");
         _inner = inner;
         _p = parameters.ToArray();
+        _doubles = parameters.ToArray();
         _rampIndex = rampIndex;
         _rampStart = rampStart;
         _rampRate = rampRate;
@@ -67,11 +69,16 @@ public sealed class ParameterOverrideSystem : IOdeSystem
     /// <inheritdoc />
     public void Evaluate<T>(double t, ReadOnlySpan<T> y, Span<T> dydt) where T : struct, System.Numerics.IFloatingPointIeee754<T>
     {
-        if (_buffer is not T[] p)
+        // One buffer for double and one for the other number type in use (dual numbers for Jacobians), so that
+        // solvers alternating between the two do not reallocate.
+        T[] p;
+        if (typeof(T) == typeof(double)) p = (T[])(object)_doubles;
+        else if (_other is T[] cached) p = cached;
+        else
         {
             p = new T[_p.Length];
             for (int i = 0; i < p.Length; i++) p[i] = T.CreateChecked(_p[i]);
-            _buffer = p;
+            _other = p;
         }
         if (_rampIndex >= 0) p[_rampIndex] = T.CreateChecked(RampValue(t));
         _inner.Evaluate(t, y, (ReadOnlySpan<T>)p, dydt);

@@ -422,7 +422,7 @@ internal sealed class FoldCurveTracer : ParameterPlaneTracer
 /// <summary>Traces a Hopf curve; it ends where ω falls to zero (a Bogdanov–Takens point).</summary>
 internal sealed class HopfCurveTracer : ParameterPlaneTracer
 {
-    /// <summary>ω below this fraction of its starting value ends the curve: the extended system degenerates as ω → 0.</summary>
+    /// <summary>ω below this fraction of its starting value ends the curve (the last point is placed at that ω): the extended system degenerates as ω → 0.</summary>
     private const double VanishingFrequency = 1e-4;
 
     private readonly HopfSystem _hopf;
@@ -444,8 +444,9 @@ internal sealed class HopfCurveTracer : ParameterPlaneTracer
     protected override Outside? ExtraCheck(ReadOnlySpan<double> u)
     {
         double omega = u[_hopf.OmegaIndex];
-        return omega <= VanishingFrequency * _omega0
-            ? new Outside(EndReason.HopfFrequencyVanished, $"The Hopf frequency ω fell to {omega:G3} at {Where(u)}: a Bogdanov–Takens point is near, where the Hopf curve ends on a fold curve.", -1, 0)
+        double floor = VanishingFrequency * _omega0;
+        return omega <= floor
+            ? new Outside(EndReason.HopfFrequencyVanished, $"The Hopf frequency ω fell to {floor:G3} near {Where(u)}: a Bogdanov–Takens point is near, where the Hopf curve ends on a fold curve.", _hopf.OmegaIndex, floor)
             : null;
     }
 

@@ -21,7 +21,8 @@ namespace Thermostrat.Model.Models;
 /// chosen so that η1 = 3 and η3 = 0.3, the classic nondimensional values: V = 10¹⁶ m³, τ_T = 10 yr,
 /// τ_S = 33.3 yr, ΔT* = 10 K, α = 2·10⁻⁴ K⁻¹ and β = 7.6·10⁻⁴ (g/kg)⁻¹ (textbook linear-EOS
 /// coefficients, e.g. Vallis, Atmospheric and Oceanic Fluid Dynamics; from memory), S0 = 35 g/kg.
-/// The thermally driven state then carries about 10–20 Sv and collapses near F ≈ 0.4 Sv.
+/// The thermally driven state then carries about 20 Sv at F = 0 and collapses at its fold, F ≈ 0.48 Sv
+/// (q ≈ 6 Sv); the salinity-driven state persists down to the corner q = 0 at F ≈ 0.36 Sv.
 /// </remarks>
 public sealed class StommelDimensionalModel : IParametricSystem, IDescribedModel
 {
@@ -121,8 +122,7 @@ public sealed class StommelDimensionalModel : IParametricSystem, IDescribedModel
     /// <inheritdoc />
     public void Evaluate<T>(double t, ReadOnlySpan<T> y, Span<T> dydt) where T : struct, IFloatingPointIeee754<T>
     {
-        Span<double> p = stackalloc double[Defaults.Length];
-        _p.CopyTo(p);
+        var p = _p;
         Rhs(y, dydt, T.CreateChecked(p[0]), T.CreateChecked(p[1]), T.CreateChecked(p[2]), T.CreateChecked(p[3]), T.CreateChecked(p[4]),
             T.CreateChecked(p[5]), T.CreateChecked(p[6]), T.CreateChecked(p[7]), T.CreateChecked(p[8]));
     }

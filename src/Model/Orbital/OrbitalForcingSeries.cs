@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.ExceptionServices;
 
 namespace Thermostrat.Model.Orbital;
 
@@ -14,6 +15,7 @@ public sealed class OrbitalForcingSeries
 {
     private readonly CubicSpline _spline;
     private readonly double _slack;
+    private readonly int _channels;
 
     /// <summary>Builds a multi-channel series.</summary>
     /// <param name="orbit">Orbit source (its <see cref="IOrbitSource.CheckRange"/> is applied; warnings land in <see cref="Warnings"/>).</param>
@@ -62,10 +64,25 @@ public sealed class OrbitalForcingSeries
                 values[c][k] = row[c];
             }
         }
-        if (parallel) Parallel.For(0, intervals + 1, Node);
-        else for (int k = 0; k <= intervals; k++) Node(k);
+        if (parallel)
+        {
+            try
+            {
+                Parallel.For(0, intervals + 1, Node);
+            }
+            catch (AggregateException ex) when (ex.InnerExceptions.Count > 0)
+            {
+                // Report the first failure as the sequential loop would, not wrapped.
+                ExceptionDispatchInfo.Capture(ex.InnerExceptions[0]).Throw();
+            }
+        }
+        else
+        {
+            for (int k = 0; k <= intervals; k++) Node(k);
+        }
 
         _spline = new CubicSpline(t, values);
+        _channels = channels;
         _slack = 1e-12 * Math.Max(1.0, Math.Max(Math.Abs(tStartYears), Math.Abs(tEndYears)));
     }
 
@@ -102,8 +119,8 @@ public sealed class OrbitalForcingSeries
     public double ValueAt(double yearsSince1950, int channel = 0)
     {
         CheckTime(yearsSince1950);
-        if ((uint)channel >= (uint)ChannelNames.Count)
-            throw new ArgumentOutOfRangeException(nameof(channel), channel, $"channel = {channel} is not allowed; this series has channels 0 to {ChannelNames.Count - 1}.");
+        if ((uint)channel >= (uint)_channels)
+            throw new ArgumentOutOfRangeException(nameof(channel), channel, $"channel = {channel} is not allowed; this series has channels 0 to {_channels - 1}.");
         return _spline.Evaluate(yearsSince1950, channel);
     }
 
@@ -111,8 +128,8 @@ public sealed class OrbitalForcingSeries
     public void ValuesAt(double yearsSince1950, Span<double> destination)
     {
         CheckTime(yearsSince1950);
-        if (destination.Length < ChannelNames.Count)
-            throw new ArgumentException($"destination has length {destination.Length}; this series has {ChannelNames.Count} channels.", nameof(destination));
+        if (destination.Length < _channels)
+            throw new ArgumentException($"destination has length {destination.Length}; this series has {_channels} channels.", nameof(destination));
         _spline.Evaluate(yearsSince1950, destination);
     }
 

@@ -17,7 +17,9 @@ namespace Thermostrat.Model.Seawater;
 /// <para>The coefficients α and β below are exact derivatives of this ρ with respect to the
 /// native variables t68 and S; see <see cref="Eos80EquationOfState"/> for the box model's
 /// variables. Every method is generic over the number type. At S = 0 the S^{3/2} terms are
-/// taken as exactly zero (with zero derivative) so that dual numbers stay finite.</para>
+/// taken as exactly zero with zero derivative, so that dual numbers stay finite: this is exact for
+/// ρ and its first derivatives; ∂β/∂S itself is unbounded as S → 0, and a dual number seeded in S
+/// at exactly S = 0 gets the finite remainder without the unbounded term.</para>
 /// </remarks>
 public static class Eos80
 {

@@ -18,6 +18,8 @@ public class ContinuationNormalFormTests
         Assert.True(Math.Abs(folds[0].Parameter) <= 1e-10, $"fold at μ = {folds[0].Parameter:R}");
         Assert.True(Math.Abs(folds[0].State[0]) <= 1e-8, $"fold at x = {folds[0].State[0]:R}");
         Assert.True(folds[0].Residual <= 1e-10);
+        Assert.Empty(branch.OfKind(SpecialPointKind.BranchPoint));
+        Assert.Empty(branch.OfKind(SpecialPointKind.Hopf));
         // Through the fold: both x = +√μ (stable, eigenvalue −2x) and x = −√μ (unstable) are on the branch, up to μ = 2.
         Assert.Contains(branch.Points, p => p.State[0] > 1 && p.Stability == StabilityType.Stable);
         Assert.Contains(branch.Points, p => p.State[0] < -1 && p.Stability == StabilityType.Unstable);
@@ -48,6 +50,23 @@ public class ContinuationNormalFormTests
     }
 
     [Theory]
+    [InlineData(-1.0, 2.5)]
+    [InlineData(1.0, 2.5)]
+    [InlineData(-0.3, 0.7)]
+    public void FirstLyapunovCoefficientOfTheHopfNormalFormIsTwoSOverOmega(double s, double omega)
+    {
+        // ż = (μ + iω) z + s z|z|², z = x + iy. Kuznetsov (Elements of Applied Bifurcation Theory, §3.5) defines
+        // l1 = Re c1/ω for ẇ = λw + c1 w|w|² in the coordinate w = ⟨p, x⟩, x = wq + w̄q̄, with ⟨q, q⟩ = 1 (from memory).
+        // Here q = (1, −i)/√2, so z = √2 w and ẇ = λw + 2s w|w|²: l1 = 2s/ω; s < 0 is supercritical.
+        var sys = new HopfNormalForm(-1, omega, s);
+        var branch = Continuation.Trace(sys, "mu", [0.0, 0.0], new ContinuationOptions { ParameterMin = -1, ParameterMax = 1, Direction = ContinuationDirection.Increasing });
+        var hopf = Assert.Single(branch.OfKind(SpecialPointKind.Hopf));
+        double expected = 2 * s / omega;
+        Assert.True(Math.Abs(hopf.FirstLyapunovCoefficient!.Value - expected) <= 1e-6 * Math.Abs(expected), $"l1 = {hopf.FirstLyapunovCoefficient:R}, expected {expected:R}");
+        Assert.Contains(s < 0 ? "supercritical" : "subcritical", hopf.Description);
+    }
+
+    [Theory]
     [InlineData("transcritical")]
     [InlineData("pitchfork")]
     public void BranchPointOnTheTrivialBranchIsAtZero(string which)
@@ -68,7 +87,7 @@ public class ContinuationNormalFormTests
         // Exact property: a linear change of coordinates plus decoupled decaying modes moves neither the fold nor its parameter.
         var sys = new MixedCoordinates(new SaddleNodeNormalForm(1), extra: 13);
         var start = sys.ToMixed([1.0]);
-        var branch = Continuation.Trace(sys, "mu", start, new ContinuationOptions { ParameterMin = -1, ParameterMax = 2 });
+        var branch = Continuation.Trace(sys, "mu", start, new ContinuationOptions { ParameterMin = -1, ParameterMax = 2, MaxStep = 0.3 });
         var fold = Assert.Single(branch.OfKind(SpecialPointKind.Fold));
         Assert.True(Math.Abs(fold.Parameter) <= 1e-10, $"fold at μ = {fold.Parameter:R}");
         Assert.True(Math.Abs(sys.ToInner(fold.State.AsSpan())[0]) <= 1e-8);

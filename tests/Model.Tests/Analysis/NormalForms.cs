@@ -47,15 +47,20 @@ internal sealed class CuspNormalForm(double a = 0, double b = 1) : TestSystem(["
 /// Hopf normal form in Cartesian coordinates (Kuznetsov, §3.4): x' = μx − ωy − x(x² + y²),
 /// y' = ωx + μy − y(x² + y²). The origin has eigenvalues μ ± iω: Hopf at μ = 0 with period 2π/ω.
 /// </summary>
-internal sealed class HopfNormalForm(double mu = -1, double omega = 2.5) : TestSystem(["mu", "omega"], [mu, omega])
+/// <remarks>
+/// With the cubic coefficient s (x' = … + s x(x² + y²)) the complex form is ż = (μ + iω) z + s z|z|²:
+/// supercritical for s &lt; 0 (Kuznetsov, §3.4–3.5); see the test for l1 in Kuznetsov's normalisation.
+/// </remarks>
+internal sealed class HopfNormalForm(double mu = -1, double omega = 2.5, double cubic = -1) : TestSystem(["mu", "omega"], [mu, omega])
 {
     public override int Dimension => 2;
 
     public override void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt)
     {
         T r2 = y[0] * y[0] + y[1] * y[1];
-        dydt[0] = p[0] * y[0] - p[1] * y[1] - y[0] * r2;
-        dydt[1] = p[1] * y[0] + p[0] * y[1] - y[1] * r2;
+        T s = T.CreateChecked(cubic);
+        dydt[0] = p[0] * y[0] - p[1] * y[1] + s * y[0] * r2;
+        dydt[1] = p[1] * y[0] + p[0] * y[1] + s * y[1] * r2;
     }
 }
 
@@ -147,13 +152,62 @@ internal sealed class MixedCoordinates : IParametricSystem
         Evaluate(t, y, (ReadOnlySpan<T>)pt, dydt);
     }
 
+    /// <summary>The maps converted to the number type last used, and work buffers (a test system: not thread-safe).</summary>
+    private object? _typed;
+
+    private sealed class Typed<T>(T[] map, T[] inverse, int m)
+    {
+        public T[] Map { get; } = map;
+        public T[] Inverse { get; } = inverse;
+        public T[] Xz { get; } = new T[m];
+        public T[] G { get; } = new T[m];
+    }
+
     public void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt) where T : struct, IFloatingPointIeee754<T>
     {
-        var xz = new T[_m];
-        for (int i = 0; i < _m; i++) { T s = T.Zero; for (int j = 0; j < _m; j++) s += T.CreateChecked(_inverse[i * _m + j]) * y[j]; xz[i] = s; }
-        var g = new T[_m];
+        if (_typed is not Typed<T> typed)
+            _typed = typed = new Typed<T>(_map.Select(T.CreateChecked).ToArray(), _inverse.Select(T.CreateChecked).ToArray(), _m);
+        var xz = typed.Xz;
+        var inv = typed.Inverse;
+        for (int i = 0; i < _m; i++) { T s = T.Zero; for (int j = 0; j < _m; j++) s += inv[i * _m + j] * y[j]; xz[i] = s; }
+        var g = typed.G;
         _inner.Evaluate(t, (ReadOnlySpan<T>)xz.AsSpan(0, _n), p, g.AsSpan(0, _n));
         for (int k = _n; k < _m; k++) g[k] = -T.CreateChecked(k - _n + 1.0) * xz[k];
-        for (int i = 0; i < _m; i++) { T s = T.Zero; for (int j = 0; j < _m; j++) s += T.CreateChecked(_map[i * _m + j]) * g[j]; dydt[i] = s; }
+        var map = typed.Map;
+        for (int i = 0; i < _m; i++) { T s = T.Zero; for (int j = 0; j < _m; j++) s += map[i * _m + j] * g[j]; dydt[i] = s; }
     }
+}
+
+/// <summary>
+/// Bogdanov–Takens normal form (Kuznetsov, Elements of Applied Bifurcation Theory, §8.4, with s = −1):
+/// x' = y, y' = β1 + β2 x + x² − x y. Equilibria (x, 0) with β1 + β2 x + x² = 0; Jacobian
+/// [[0, 1], [β2 + 2x, −x]]: folds on β1 = β2²/4, Hopf points on β1 = 0, β2 &lt; 0 with ω² = −β2, both
+/// curves meeting the Bogdanov–Takens point β1 = β2 = 0.
+/// </summary>
+internal sealed class BogdanovTakensNormalForm(double beta1 = 0.1, double beta2 = -1) : TestSystem(["beta1", "beta2"], [beta1, beta2])
+{
+    public override int Dimension => 2;
+
+    public override void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt)
+    {
+        dydt[0] = y[1];
+        dydt[1] = p[0] + p[1] * y[0] + y[0] * y[0] - y[0] * y[1];
+    }
+}
+
+/// <summary>x' = μ² + x² − 1: a closed circle of equilibria (an isola) with folds at μ = ±1, x = 0 (exact).</summary>
+internal sealed class CircleOfEquilibria(double mu = 0) : TestSystem(["mu"], [mu])
+{
+    public override int Dimension => 1;
+
+    public override void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt) => dydt[0] = p[0] * p[0] + y[0] * y[0] - T.One;
+}
+
+/// <summary>x' = μ − x − ½|x|: equilibria x = μ/1.5 (x &gt; 0) and x = 2μ (x &lt; 0), a kink without a turn at μ = 0 (exact).</summary>
+internal sealed class KinkedLine(double mu = 1) : TestSystem(["mu"], [mu])
+{
+    public override int Dimension => 1;
+
+    public override void Evaluate<T>(double t, ReadOnlySpan<T> y, ReadOnlySpan<T> p, Span<T> dydt) =>
+        dydt[0] = p[0] - y[0] - T.CreateChecked(0.5) * T.Abs(y[0]);
 }

@@ -37,6 +37,26 @@ public class TransientThresholdTests
     }
 
     [Fact]
+    public void RampWithACallerSuppliedIntegratorAgreesWithTheBuiltInSolve()
+    {
+        // The same ramp driven sample by sample through a TransientIntegrator (classical RK4, fixed step 1e-3)
+        // must give the same departure as one adaptive solve (both approximate the exact value above).
+        const double eps = 1e-3;
+        var sys = new SaddleNodeNormalForm(0.1);
+        var branch = Continuation.Trace(sys, "mu", [Math.Sqrt(0.1)], new ContinuationOptions { ParameterMin = -0.2, ParameterMax = 0.2 });
+        var rk4 = TransientIntegrators.FromSolver(new Thermostrat.Model.Numerics.Ode.SolverOptions
+        {
+            Method = Thermostrat.Model.Numerics.Ode.OdeMethod.RungeKutta4, FixedStep = 1e-3,
+        });
+        var options = new RampOptions { StartValue = 0.1, EndValue = -0.2, Rate = eps, SampleInterval = 0.01, StopWhen = x => x[0] < -20 };
+        var viaDelegate = RampRun.Compare(RampRun.Run(sys, "mu", [0.3], [0.1], options with { Integrator = rk4 }), branch, 10);
+        var builtIn = RampRun.Compare(RampRun.Run(sys, "mu", [0.3], [0.1], options), branch, 10);
+        Assert.True(Math.Abs(viaDelegate.DepartureParameter!.Value - builtIn.DepartureParameter!.Value) <= 1e-5,
+            $"{viaDelegate.DepartureParameter:R} vs {builtIn.DepartureParameter:R}");
+        Assert.True(Math.Abs(viaDelegate.DepartureParameter.Value - -0.0232810818685) <= 2e-5);
+    }
+
+    [Fact]
     public void SlowerRampsOvershootLess()
     {
         // Haberman (1979): overshoot ∝ ε^{2/3}; halving ε scales it by 2^{-2/3} ≈ 0.63 (to within the ε/L escape correction).

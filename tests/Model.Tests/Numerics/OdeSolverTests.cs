@@ -70,9 +70,10 @@ public class OdeSolverTests
     [InlineData(OdeMethod.Rodas4)]
     public void StommelTwoBoxMatchesScipyReference(OdeMethod method)
     {
-        // A Stommel (1961)-type two-box salt-advection scenario (invented parameters), reference SciPy Radau rtol 1e-12 (fixture).
-        var (reference, _) = OdeReferences.Get("stommel", 50);
-        var r = OdeSolver.Solve(new StommelSystem(3.0, 1.0, 0.3), 0, [1.0, 0.5], 50,
+        // A Stommel (1961)-type two-box salt-advection scenario with invented periodic freshwater forcing (time-dependent f),
+        // reference SciPy Radau rtol 1e-12 (fixture).
+        var (reference, _) = OdeReferences.Get("stommel_forced", 50);
+        var r = OdeSolver.Solve(new StommelSystem(3.0, 1.0, 0.5, 10.0, 0.3), 0, [1.0, 0.5], 50,
             new SolverOptions { Method = method, RelativeTolerance = 1e-10, AbsoluteTolerance = 1e-12, Output = OutputTimes.FinalOnly });
         for (int i = 0; i < 2; i++)
             Assert.True(Math.Abs(r.FinalState[i] - reference[i]) < 1e-8, $"{method}: y{i} = {r.FinalState[i]:R}, reference {reference[i]:R}");
@@ -477,14 +478,17 @@ public class OdeSolverTests
     }
 }
 
-/// <summary>A Stommel (1961)-type two-box model in the common nondimensional form T' = η1 − T − |T − S| T, S' = η2 − η3 S − |T − S| S (from memory).</summary>
-internal sealed class StommelSystem(double eta1, double eta2, double eta3) : Thermostrat.Model.Numerics.IOdeSystem
+/// <summary>
+/// A Stommel (1961)-type two-box model in the common nondimensional form T' = η1 − T − |T − S| T, S' = η2(t) − η3 S − |T − S| S
+/// (form from memory), with invented periodic forcing η2(t) = η2 + a sin(2πt/P).
+/// </summary>
+internal sealed class StommelSystem(double eta1, double eta2, double amplitude, double period, double eta3) : Thermostrat.Model.Numerics.IOdeSystem
 {
     public int Dimension => 2;
     public void Evaluate<T>(double t, ReadOnlySpan<T> y, Span<T> dydt) where T : struct, System.Numerics.IFloatingPointIeee754<T>
     {
         T q = T.Abs(y[0] - y[1]);
         dydt[0] = T.CreateChecked(eta1) - y[0] - q * y[0];
-        dydt[1] = T.CreateChecked(eta2) - T.CreateChecked(eta3) * y[1] - q * y[1];
+        dydt[1] = T.CreateChecked(eta2 + amplitude * Math.Sin(2 * Math.PI * t / period)) - T.CreateChecked(eta3) * y[1] - q * y[1];
     }
 }

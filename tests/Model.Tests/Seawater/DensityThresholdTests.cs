@@ -188,6 +188,19 @@ public sealed class DensityThresholdTests
     }
 
     [Fact]
+    public void AnIterationCutShortIsReportedAsNoSolution()
+    {
+        // One iteration cannot reach 1e-10 kg/m³ from ΔS = 0 when ΔS ≈ −0.6 g/kg (the subpolar gsw case): the
+        // calculator must say so rather than report the unconverged iterate.
+        var options = new DensityThresholdOptions { MaxIterations = 1 };
+        var r = DensityThreshold.Solve(new Teos10EquationOfState(), new WaterMass(35.2, 4.0), new WaterMass(34.9, 6.0), 100.0, options);
+        Assert.False(r.SalinityChange_gkg.Found);
+        Assert.Contains("MaxIterations = 1", r.SalinityChange_gkg.NoSolutionReason);
+        var converged = DensityThreshold.Solve(new Teos10EquationOfState(), new WaterMass(35.2, 4.0), new WaterMass(34.9, 6.0), 100.0);
+        Assert.InRange(converged.SalinityChange_gkg.Iterations, 2, 10); // Newton: a handful of steps
+    }
+
+    [Fact]
     public void WaterMassAtDepthUsesThePressureOfThatDepth()
     {
         // Saunders (1981); tested against gsw.p_from_z in ConversionTests.

@@ -58,6 +58,26 @@ public sealed class Eos80Tests
     }
 
     [Fact]
+    public void StatedErrorOfTreatingTheBoxTemperatureAsInSituTemperature()
+    {
+        // Eos80EquationOfState's remarks: fed Θ as if it were in-situ temperature, EOS-80 differs from TEOS-10 at the
+        // surface by up to about 0.1 kg/m³ for S_A ≥ 30 g/kg and 0.6 kg/m³ in warm fresh water (python3-gsw 3.6.16
+        // gives 0.102 and 0.566 kg/m³ over S_A 0–40 g/kg, 0–35 °C). The bounds are checked here, as is that the
+        // difference is real (so the remark is needed).
+        IEquationOfState eos80 = EquationsOfState.Create("eos80"), teos10 = EquationsOfState.Create("teos10");
+        double worstSalty = 0, worstAll = 0;
+        for (double sa = 0; sa <= 40.0 + 1e-9; sa += 0.5)
+            for (double t = 0; t <= 35.0 + 1e-9; t += 0.5)
+            {
+                double d = Math.Abs(eos80.Density(sa, t, 0.0) - teos10.Density(sa, t, 0.0));
+                worstAll = Math.Max(worstAll, d);
+                if (sa >= 30) worstSalty = Math.Max(worstSalty, d);
+            }
+        Assert.InRange(worstSalty, 0.05, 0.11);
+        Assert.InRange(worstAll, 0.5, 0.6);
+    }
+
+    [Fact]
     public void AdapterMapsBoxVariablesOntoNativeOnes()
     {
         // Documented mapping: SP = SA·35/35.16504, t68 = 1.00024 t (t treated as in-situ ITS-90), p unchanged.

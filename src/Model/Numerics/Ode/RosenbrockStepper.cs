@@ -2,7 +2,7 @@ namespace Thermostrat.Model.Numerics.Ode;
 
 /// <summary>
 /// The step of a Rosenbrock–Wanner method (<see cref="RosenbrockTableau"/>): one Jacobian and ∂f/∂t per step (kept across
-/// rejections), one LU factorisation of I/(hγ) − J per attempt (<see cref="DenseLu"/>), one substitution per stage.
+/// rejections), one LU factorisation of I/(hγ) − J per attempt (<see cref="ColumnMajorLu"/>), one substitution per stage.
 /// </summary>
 internal sealed class RosenbrockStepper : Stepper
 {
@@ -15,10 +15,9 @@ internal sealed class RosenbrockStepper : Stepper
     private readonly RosenbrockTableau _tab;
     private readonly RhsFunction<Dual>? _dualF;
     private readonly bool _autonomous;
-    private readonly double[] _jac, _w, _u, _arg, _rhs, _fx, _ft, _scratch, _dense;
+    private readonly double[] _jac, _w, _invDiag, _u, _arg, _fx, _ft, _scratch, _dense;
     private readonly int[] _pivots;
     private readonly Dual[] _yd, _fd;
-    private readonly double[] _ca;
     private bool _jacobianCurrent;
     private bool _denseReady;
     private readonly int _s;
@@ -35,14 +34,13 @@ internal sealed class RosenbrockStepper : Stepper
         _pivots = new int[n];
         _u = new double[_s * n];
         _arg = new double[n];
-        _rhs = new double[n];
+        _invDiag = new double[n];
         _fx = new double[n];
         _ft = new double[n];
         _scratch = new double[3 * n];
         _dense = new double[2 * n];
         _yd = dualF is null ? [] : new Dual[n];
         _fd = dualF is null ? [] : new Dual[n];
-        _ca = new double[_s];
     }
 
     public override OdeMethod Method => _tab.Method;
@@ -71,7 +69,7 @@ internal sealed class RosenbrockStepper : Stepper
                 yd[j] = new Dual(y[j], 1.0);
                 df(t, yd, fd);
                 yd[j] = new Dual(y[j], 0.0);
-                for (int i = 0; i < n; i++) _jac[i * n + j] = fd[i].Derivative;
+                for (int i = 0; i < n; i++) _jac[j * n + i] = fd[i].Derivative; // column-major: column j is ∂f/∂y_j
             }
             if (n > 0)
                 for (int i = 0; i < n; i++) _fx[i] = fd[i].Value;
@@ -92,7 +90,7 @@ internal sealed class RosenbrockStepper : Stepper
                 Evaluate(t, yp, fm);
                 yp[j] = yj;
                 double span = up - down;
-                for (int i = 0; i < n; i++) _jac[i * n + j] = (fp[i] - fm[i]) / span;
+                for (int i = 0; i < n; i++) _jac[j * n + i] = (fp[i] - fm[i]) / span;
             }
         }
         Counters.JacobianEvaluations++;
@@ -121,41 +119,42 @@ internal sealed class RosenbrockStepper : Stepper
         {
             Linearise(t, y);
             int bad = VectorOps.FirstNonFinite(_jac);
-            if (bad >= 0) { badIndex = bad / n; return TrialOutcome.NonFinite; }
+            if (bad >= 0) { badIndex = bad % n; return TrialOutcome.NonFinite; } // row i of column-major J[i + j·n]
             bad = VectorOps.FirstNonFinite(_ft);
             if (bad >= 0) { badIndex = bad; return TrialOutcome.NonFinite; }
         }
 
-        // W = I/(hγ) − J, factored.
+        // W = I/(hγ) − J (column-major, like J), factored.
         double diag = 1.0 / (h * _tab.Gamma);
         var w = _w.AsSpan();
         for (int i = 0; i < n * n; i++) w[i] = -_jac[i];
         for (int i = 0; i < n; i++) w[i * n + i] += diag;
         Counters.LuFactorizations++;
-        if (!DenseLu.Factor(w, n, _pivots)) return TrialOutcome.Singular;
+        if (!ColumnMajorLu.Factor(w, n, _pivots, _invDiag)) return TrialOutcome.Singular;
 
         var tab = _tab;
         var u = _u.AsSpan();
+        double invH = 1.0 / h;
         for (int s = 0; s < _s; s++)
         {
-            Span<double> rhs = _rhs;
+            // U_s ← f(t + α_s h, y + Σ a_sj U_j) + (1/h) Σ c_sj U_j + h γ_s ∂f/∂t, then solved in place.
+            var us = u.Slice(s * n, n);
             if (s == 0)
             {
-                _fx.CopyTo(rhs);
+                _fx.CopyTo(us);
             }
             else
             {
                 StageOps.Combine(y, 1.0, tab.A[s], s, u, n, _arg);
-                Evaluate(t + tab.Alpha[s] * h, _arg, rhs);
-                var c = tab.C[s];
-                for (int j = 0; j < s; j++) _ca[j] = c[j] / h;
-                StageOps.Combine(rhs, 1.0, _ca, s, u, n, rhs);
+                Evaluate(t + tab.Alpha[s] * h, _arg, us);
+                // Name the component of f that failed, before the linear solve spreads the NaN over every component.
+                badIndex = VectorOps.FirstNonFinite(us);
+                if (badIndex >= 0) return TrialOutcome.NonFinite;
+                StageOps.Combine(us, invH, tab.C[s], s, u, n, us);
             }
             double g = h * tab.GammaSum[s];
-            if (g != 0.0 && !_autonomous) VectorOps.Axpy(g, _ft, rhs);
-            var us = u.Slice(s * n, n);
-            rhs.CopyTo(us);
-            DenseLu.Solve(w, n, _pivots, us);
+            if (g != 0.0 && !_autonomous) VectorOps.Axpy(g, _ft, us);
+            ColumnMajorLu.Solve(w, n, _pivots, _invDiag, us);
             Counters.LinearSolves++;
         }
         StageOps.Combine(y, 1.0, tab.M, _s, u, n, yNew);

@@ -32,7 +32,10 @@ public sealed record SolverOptions
     /// <summary>First step size (time units, &gt; 0), or null to choose it automatically (Hairer, Nørsett and Wanner I, Sect. II.4).</summary>
     public double? InitialStep { get; init; }
 
-    /// <summary>Largest step size (time units, &gt; 0; default unbounded). Bound it to keep short-lived events from being stepped over.</summary>
+    /// <summary>
+    /// Largest step size (time units, &gt; 0; default unbounded). Bound it to keep short-lived events from being stepped over, and,
+    /// with <see cref="OdeMethod.Rodas4"/> on stiff problems, to keep interpolated output between steps as accurate as the step ends.
+    /// </summary>
     public double MaxStep { get; init; } = double.PositiveInfinity;
 
     /// <summary>Most step attempts (accepted and rejected) before the solve fails with <see cref="OdeFailureKind.TooManySteps"/> (default 10 000 000).</summary>

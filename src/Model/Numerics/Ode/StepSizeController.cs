@@ -29,7 +29,7 @@ internal sealed class StepSizeController
 
     private readonly bool _predictive;
     private readonly double _k, _alpha, _beta, _maxFactor;
-    private double _errOld, _hOld;
+    private double _errOld, _logErrOld, _hOld;
     private bool _lastRejected, _hasHistory;
 
     public StepSizeController(int errorOrder, bool predictive)
@@ -40,7 +40,11 @@ internal sealed class StepSizeController
         _alpha = 1.0 / _k - 0.75 * _beta;
         _maxFactor = predictive ? MaxFactorRosenbrock : MaxFactorExplicit;
         _errOld = predictive ? ErrorFloorRosenbrock : ErrorFloorExplicit;
+        _logErrOld = Math.Log(_errOld);
     }
+
+    /// <summary>x^(1/k), with the common k = 4 by two square roots (cheaper than <see cref="Math.Pow"/>).</summary>
+    private double Root(double x) => _k == 4 ? Math.Sqrt(Math.Sqrt(x)) : Math.Pow(x, 1.0 / _k);
 
     /// <summary>Next step size after accepting a step of size h with error norm err.</summary>
     public double Accepted(double h, double err)
@@ -49,18 +53,21 @@ internal sealed class StepSizeController
         if (_predictive)
         {
             double e = Math.Max(err, 1e-16);
-            factor = Safety * Math.Pow(e, -1.0 / _k);
+            factor = Safety / Root(e);
             if (_hasHistory)
             {
-                double predictive = Safety * (h / _hOld) * Math.Pow(_errOld / (e * e), 1.0 / _k);
+                double predictive = Safety * (h / _hOld) * Root(_errOld / (e * e));
                 factor = Math.Min(factor, predictive);
             }
             _errOld = Math.Max(ErrorFloorRosenbrock, err);
         }
         else
         {
-            factor = err == 0.0 ? _maxFactor : Safety * Math.Pow(err, -_alpha) * Math.Pow(_errOld, _beta);
+            // err^(−α)·err_old^β as one exponential; the logarithm of the remembered error is kept from the previous step.
+            double logErr = Math.Log(Math.Max(err, ErrorFloorExplicit * 1e-12));
+            factor = err == 0.0 ? _maxFactor : Safety * Math.Exp(-_alpha * logErr + _beta * _logErrOld);
             _errOld = Math.Max(err, ErrorFloorExplicit);
+            _logErrOld = err > ErrorFloorExplicit ? logErr : Math.Log(ErrorFloorExplicit);
         }
         factor = Math.Clamp(factor, MinFactor, _maxFactor);
         if (_lastRejected) factor = Math.Min(factor, 1.0);
@@ -74,7 +81,7 @@ internal sealed class StepSizeController
     public double Rejected(double h, double err)
     {
         _lastRejected = true;
-        double factor = double.IsFinite(err) ? Safety * Math.Pow(err, -1.0 / _k) : MinFactor;
+        double factor = double.IsFinite(err) ? Safety / Root(err) : MinFactor;
         return h * Math.Clamp(factor, MinFactor, 1.0);
     }
 }
