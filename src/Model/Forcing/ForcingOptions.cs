@@ -6,7 +6,7 @@ namespace Thermostrat.Model.Forcing;
 /// Forcing of the tropical model (section "Model:Forcing"): insolation from the orbit (annual mean or the
 /// seasonal cycle), CO2 and sea level (constant or from a file), and freshwater schedules per surface box.
 /// </summary>
-public sealed class ForcingOptions : ISelfValidating
+public sealed class ForcingOptions
 {
     /// <summary>Resolve the seasonal cycle with daily-mean insolation (false: annual-mean insolation).</summary>
     [Parameter("", "resolve the seasonal cycle with daily-mean insolation (false: annual means)")]
@@ -32,9 +32,6 @@ public sealed class ForcingOptions : ISelfValidating
 
     /// <summary>Freshwater schedules (hosing), one per surface box.</summary>
     public FreshwaterSchedulesOptions Freshwater { get; set; } = new();
-
-    /// <inheritdoc/>
-    public IEnumerable<string> Validate(string path) => [];
 }
 
 /// <summary>CO2 concentration: a constant, or a time series from a CSV or Parquet file ("Model:Forcing:Co2").</summary>
