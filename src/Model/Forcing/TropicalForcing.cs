@@ -74,7 +74,7 @@ public sealed class TropicalForcing
             throw new ConfigurationException($"the orbit ({env.Orbit.Description}) cannot serve the run from {env.StartAgeKa.ToString(CultureInfo.InvariantCulture)} ka for {env.DurationYears.ToString(CultureInfo.InvariantCulture)} years: {e.Message}", e);
         }
         var bands = Boxes.Surface.Select(b => (model.Boxes[b].SouthDeg, model.Boxes[b].NorthDeg)).ToArray();
-        var insolation = new OrbitalInsolationForcing(orbit, start, end, f.SeasonalCycle ? f.SeasonalGridSpacing_yr : f.AnnualGridSpacing_yr, bands, f.SeasonalCycle, f.SeasonalHarmonics, env.SolarConstant_Wm2, env.ParallelPrecompute);
+        var insolation = new OrbitalInsolationForcing(orbit, start, end, f.SeasonalCycle ? f.SeasonalGridSpacing_yr : f.AnnualGridSpacing_yr, bands, f.SeasonalCycle, f.SeasonalTableDays, env.SolarConstant_Wm2, env.ParallelPrecompute);
 
         var co2 = string.IsNullOrWhiteSpace(f.Co2.File)
             ? TimeSeriesForcing.Constant(f.Co2.Constant_ppm, "ppm")

@@ -22,6 +22,25 @@ public class FeedbackTests
     }
 
     [Fact]
+    public void RemovingTheStabilityDependenceAtFixedMeanCloudReducesTheZonalDifference()
+    {
+        // The feedback alone: slope s = 0 with each regime's intercept set to its area-mean cloud fraction at the
+        // default equilibrium, so the mean cloud is unchanged but no longer follows the local SST.
+        var m = Build();
+        var y = Equilibrium(m);
+        var d = Diagnostics(m, y);
+        double Mean(Box a, Box b) => (d(TropicalDiagnostics.LowCloudFraction(a)) * m.Options.Boxes[a].Area_m2 + d(TropicalDiagnostics.LowCloudFraction(b)) * m.Options.Boxes[b].Area_m2)
+            / (m.Options.Boxes[a].Area_m2 + m.Options.Boxes[b].Area_m2);
+        var p = Parameters(m);
+        p[m.ParameterIndex("Model:Processes:LowCloud:Tropical:Slope_perK")] = 0;
+        p[m.ParameterIndex("Model:Processes:LowCloud:Tropical:Intercept")] = Mean(Box.WarmPool, Box.ColdTongue);
+        p[m.ParameterIndex("Model:Processes:LowCloud:Extratropical:Slope_perK")] = 0;
+        p[m.ParameterIndex("Model:Processes:LowCloud:Extratropical:Intercept")] = Mean(Box.North, Box.South);
+        double dT = ZonalDifference(Equilibrium(m, p, y));
+        Assert.True(dT < DefaultDifference - 0.3, $"ΔT with SST-independent cloud {dT:F2} K, default {DefaultDifference:F2} K");
+    }
+
+    [Fact]
     public void TurningOffTheWindCouplingReducesTheZonalDifference()
     {
         var m = Build(o => o.Processes[BjerknesWindStress.ProcessName].Enabled = false);

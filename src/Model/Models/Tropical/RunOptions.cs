@@ -24,7 +24,7 @@ public sealed class RunOptions : ISelfValidating
     public double DurationYears { get; set; } = 10000.0;
 
     /// <summary>Age at the start of the run (ka before 1950, positive into the past; negative = future).</summary>
-    [Parameter("ka", "age at the start of the run (thousands of years before 1950)", Source = "common practice (present day)", Min = -5000, Max = 100000)]
+    [Parameter("ka", "age at the start of the run (thousands of years before 1950)", Source = "common practice (present day)", Min = -5000, Max = 1e5)]
     public double StartAgeKa { get; set; }
 
     /// <summary>Spacing of the output rows.</summary>

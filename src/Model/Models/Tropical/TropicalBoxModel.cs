@@ -132,6 +132,7 @@ public sealed class TropicalBoxModel : IParametricSystem, IDescribedModel
     /// <param name="options">Model configuration (section "Model").</param>
     /// <param name="environment">Orbit, solar constant, run span and file base directory.</param>
     /// <param name="catalog">Processes to build from; the built-in catalog when null.</param>
+    /// <remarks>Entries of the catalog missing from <c>options.Processes</c> are added with their defaults (the options object is completed in place).</remarks>
     /// <exception cref="ConfigurationException">Any problem with the configuration or the forcing, naming the key, the value and what is allowed.</exception>
     public static TropicalBoxModel Create(TropicalModelOptions options, ForcingEnvironment environment, ProcessCatalog? catalog = null)
     {

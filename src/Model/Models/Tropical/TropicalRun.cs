@@ -67,12 +67,14 @@ public static class TropicalRun
 
     /// <summary>
     /// Integrates <paramref name="model"/> from its initial state (or <paramref name="initialState"/>) over the run and
-    /// writes one row per output interval (the first at time 0) to <paramref name="sink"/>.
+    /// writes one row per output interval (the first at time 0) to <paramref name="sink"/>. With
+    /// <see cref="RunOptions.SamplesPerOutput"/> n &gt; 1 each later row is the mean of n samples over the interval that
+    /// ends at its time (a final partial interval is not written).
     /// </summary>
     /// <param name="model">A model built for this run's span (see <see cref="CreateModel"/>).</param>
     /// <param name="run">Duration, output spacing, method and tolerances.</param>
     /// <param name="sink">Receives the rows.</param>
-    /// <param name="progress">Receives the completed fraction (0 … 1) at each output row, or null.</param>
+    /// <param name="progress">Receives the completed fraction (0 … 1) with output rows (at most about a thousand times, always at the end), or null.</param>
     /// <param name="cancellationToken">Stops the run (OperationCanceledException) between output rows.</param>
     /// <param name="initialState">Start state instead of the configured one, or null.</param>
     /// <exception cref="ConfigurationException">The run does not fit the model's precomputed forcing span, or bad options.</exception>
@@ -115,6 +117,7 @@ public static class TropicalRun
         private readonly double[] _sum = new double[model.Columns.Count];
         private int _count;
         private bool _first = true;
+        private double _reported = double.NegativeInfinity;
 
         public long Rows { get; private set; }
 
@@ -143,7 +146,12 @@ public static class TropicalRun
         {
             sink.Write(row);
             Rows++;
-            progress?.Report(duration > 0 ? Math.Clamp(t / duration, 0.0, 1.0) : 1.0);
+            if (progress is null) return;
+            double fraction = duration > 0 ? Math.Clamp(t / duration, 0.0, 1.0) : 1.0;
+            // At most about a thousand reports per run.
+            if (fraction - _reported < 1e-3 && fraction < 1.0) return;
+            _reported = fraction;
+            progress.Report(fraction);
         }
     }
 }
