@@ -85,7 +85,18 @@ public sealed class ParquetTableWriter : IDisposable
         };
         if (metadata is not null)
             foreach (var (k, v) in metadata) meta[k] = v;
+        _metadata = meta;
         _writer.CustomMetadata = meta;
+    }
+
+    private readonly Dictionary<string, string> _metadata;
+
+    /// <summary>Adds or replaces a key-value metadata entry; allowed until <see cref="Complete"/> (the footer is written last).</summary>
+    public void SetMetadata(string key, string value)
+    {
+        ObjectDisposedException.ThrowIf(_disposed, this);
+        _metadata[key] = value;
+        _writer.CustomMetadata = _metadata;
     }
 
     /// <summary>Starts a table at <paramref name="path"/> (written to a temporary name until <see cref="Complete"/>).</summary>

@@ -72,12 +72,13 @@ public sealed class RunCommand : IRunnerCommand
             }
         }
         sink.Complete();
+        foreach (var w in sink.Warnings) stderr.WriteLine("warning: " + w);
         RunFigure.Draw(output.File_("timeseries.png"), sink.Columns, sink.Kept, settings.Run.StartAgeKa, settings.Description);
         output.WriteRunRecord("run", Environment.GetCommandLineArgs().Skip(1).ToList(), settings, new Dictionary<string, object?>
         {
             ["scenario"] = scenario,
             ["orbit"] = orbit.Description,
-            ["warnings"] = warnings,
+            ["warnings"] = warnings.Concat(sink.Warnings).ToList(),
             ["rows"] = summary.Rows,
             ["final_state"] = model.StateVariables.Select((s, i) => (s.Name, v: summary.FinalState[i])).ToDictionary(x => x.Name, x => (object?)x.v),
             ["integration"] = new Dictionary<string, object?>
@@ -134,19 +135,28 @@ internal sealed class ParquetRowSink(string path, Dictionary<string, string> met
     public IReadOnlyList<ColumnSpec> Columns { get; private set; } = [];
     public List<double[]> Kept { get; } = [];
 
-    private (int Index, string Name, double Min, double Max, string Unit)[] _ranges = [];
+    /// <summary>Hard limits beyond which a run has left the model's physics and is stopped (°C, g/kg).</summary>
+    public const double HardMinTemperature = -5, HardMaxTemperature = 50, HardMinSalinity = 0, HardMaxSalinity = 50;
+
+    private (int Index, string Name, double Min, double Max, double HardMin, double HardMax, string Unit)[] _ranges = [];
     private int _timeColumn = -1;
+    private readonly HashSet<string> _warned = [];
+
+    /// <summary>Warnings raised during the run (a variable outside the equation of state's funnel).</summary>
+    public List<string> Warnings { get; } = [];
 
     public void Begin(IReadOnlyList<ColumnInfo> columns)
     {
         Columns = columns.Select(c => new ColumnSpec(c.Name, c.Unit, c.Meaning)).ToList();
         _timeColumn = columns.ToList().FindIndex(c => c.Name == "time_yr");
-        // State temperatures and salinities must stay where the equation of state is valid; a run
-        // that leaves that range has left the model's physics and is stopped with a diagnosis.
+        // State temperatures and salinities are watched against the equation of state's range (the
+        // TEOS-10 funnel, −2…40 °C and 0…42 g/kg): outside it the densities are extrapolated, which
+        // is reported as a warning; far outside (hard limits) the run has left the model's physics
+        // and is stopped with a diagnosis.
         _ranges = columns.Select((c, i) => (c, i)).Where(x => x.c.Kind == "state" && x.c.Unit is "degC" or "g kg-1")
             .Select(x => x.c.Unit == "degC"
-                ? (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinTemperature, Model.Seawater.SeawaterRange.MaxTemperature, "°C")
-                : (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinSalinity, Model.Seawater.SeawaterRange.MaxSalinity, "g/kg"))
+                ? (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinTemperature, Model.Seawater.SeawaterRange.MaxTemperature, HardMinTemperature, HardMaxTemperature, "°C")
+                : (x.i, x.c.Name, Model.Seawater.SeawaterRange.MinSalinity, Model.Seawater.SeawaterRange.MaxSalinity, HardMinSalinity, HardMaxSalinity, "g/kg"))
             .ToArray();
         _writer = ParquetTableWriter.Create(path, Columns, meta);
     }
@@ -155,12 +165,19 @@ internal sealed class ParquetRowSink(string path, Dictionary<string, string> met
 
     public void Write(ReadOnlySpan<double> row)
     {
-        foreach (var (i, name, min, max, unit) in _ranges)
-            if (!(row[i] >= min && row[i] <= max))
+        foreach (var (i, name, min, max, hardMin, hardMax, unit) in _ranges)
+        {
+            double v = row[i];
+            if (v >= min && v <= max) continue;
+            string at = $"{name} = {v.ToString("G6", CultureInfo.InvariantCulture)} {unit} at year {(_timeColumn >= 0 ? row[_timeColumn] : double.NaN).ToString("G8", CultureInfo.InvariantCulture)}";
+            if (!(v >= hardMin && v <= hardMax))
                 throw new RunFailedException(
-                    $"{name} = {row[i].ToString("G6", CultureInfo.InvariantCulture)} {unit} at year {(_timeColumn >= 0 ? row[_timeColumn] : double.NaN).ToString("G8", CultureInfo.InvariantCulture)} " +
-                    $"left the equation of state's range {min.ToString(CultureInfo.InvariantCulture)} to {max.ToString(CultureInfo.InvariantCulture)} {unit}; the run was stopped and no output was written " +
+                    $"{at} is beyond the limits {hardMin.ToString(CultureInfo.InvariantCulture)} to {hardMax.ToString(CultureInfo.InvariantCulture)} {unit} " +
+                    $"(the equation of state's range is {min.ToString(CultureInfo.InvariantCulture)} to {max.ToString(CultureInfo.InvariantCulture)} {unit}); the run was stopped and no output was written " +
                     "(the parameters drive the model outside its physics; check the heat or freshwater fluxes).");
+            if (_warned.Add(name))
+                Warnings.Add($"{at} left the equation of state's range {min.ToString(CultureInfo.InvariantCulture)} to {max.ToString(CultureInfo.InvariantCulture)} {unit}; densities there are extrapolated (first occurrence)");
+        }
         _writer!.AppendRow(row);
         bool keep = _n++ % _every == 0;
         if (keep) Kept.Add(row.ToArray());
@@ -183,6 +200,7 @@ internal sealed class ParquetRowSink(string path, Dictionary<string, string> met
     public void Complete()
     {
         if (!_last) throw new InvalidOperationException("the run did not finish");
+        if (Warnings.Count > 0) _writer!.SetMetadata("thermostrat.warnings", string.Join("\n", Warnings));
         _writer!.Complete();
     }
 
