@@ -66,11 +66,7 @@ public sealed class BoundaryCommand : IRunnerCommand
         if (p[k2] < sFrom || p[k2] > sTo)
             throw new ConfigurationException($"the model's {host.System.GetParameterName(k2)} = {p[k2].ToString("G6", CultureInfo.InvariantCulture)} lies outside --second-from/--second-to; the curves start from folds found at that value");
 
-        var branch = Continuation.Trace(host.System, k1, start.State.AsSpan(), p, new ContinuationOptions
-        {
-            ParameterMin = from, ParameterMax = to, ParameterScale = to - from, InitialStep = 0.01, MaxStep = 0.1,
-            StateScale = host.StateScale, Validity = host.Validity,
-        });
+        var branch = Model.Analysis.Continuation.Trace(host.System, k1, start.State.AsSpan(), p, ModelChoiceOptions.Continuation(host, from, to));
         var curveOptions = new CurveOptions
         {
             FirstParameterMin = from, FirstParameterMax = to, SecondParameterMin = sFrom, SecondParameterMax = sTo,

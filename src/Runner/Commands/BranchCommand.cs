@@ -79,6 +79,24 @@ internal sealed class ModelChoiceOptions
             (near is null ? "" : $"; did you mean '{near}'?") + $" Parameters: {string.Join(", ", names)}");
     }
 
+    /// <summary>
+    /// Continuation settings shared by the analysis commands: the parameter measured in units of its
+    /// range and each state variable in units of its typical change (the host's scales), so one
+    /// step size suits every model.
+    /// </summary>
+    public static ContinuationOptions Continuation(IModelHost host, double from, double to, double maxStep = BranchCommand.DefaultMaxStep, int maxPoints = 2000) => new()
+    {
+        ParameterMin = from,
+        ParameterMax = to,
+        ParameterScale = to - from,
+        InitialStep = maxStep / 10,
+        MaxStep = maxStep,
+        MinStep = 1e-9,
+        MaxPoints = maxPoints,
+        StateScale = host.StateScale,
+        Validity = host.Validity,
+    };
+
     public static (double From, double To) Range(string option, double from, double to)
     {
         if (!double.IsFinite(from) || !double.IsFinite(to))
@@ -95,6 +113,9 @@ internal sealed class ModelChoiceOptions
 /// </summary>
 public sealed class BranchCommand : IRunnerCommand
 {
+    /// <summary>Default largest continuation step (scaled arclength).</summary>
+    public const double DefaultMaxStep = 0.25;
+
     private readonly CommonOptions _common = new("out/branch");
     private readonly ModelChoiceOptions _model = new();
     private readonly Option<string> _vary = new("--vary") { Description = "The parameter to continue in (its analysis name; see 'describe').", Required = true };
@@ -102,7 +123,7 @@ public sealed class BranchCommand : IRunnerCommand
     private readonly Option<double> _to = new("--to") { Description = "Upper end of the parameter range.", Required = true };
     private readonly Option<double?> _startAt = new("--start-at") { Description = "Parameter value of the starting equilibrium (default: the model's value, clipped into the range)." };
     private readonly Option<int> _maxPoints = new("--max-points") { Description = "Largest number of points in each direction (default 2000).", DefaultValueFactory = _ => 2000 };
-    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest continuation step in the scaled arclength norm: the parameter measured in units of its range, each state variable in units of its typical change (default 0.25).", DefaultValueFactory = _ => 0.25 };
+    private readonly Option<double> _maxStep = new("--max-step") { Description = "Largest continuation step in the scaled arclength norm: the parameter measured in units of its range, each state variable in units of its typical change (default 0.25).", DefaultValueFactory = _ => DefaultMaxStep };
     private readonly Option<string?> _show = new("--show") { Description = "Column for the vertical axis of the diagram (a state or diagnostic column; default the first diagnostic)." };
 
     /// <inheritdoc />
@@ -148,19 +169,8 @@ public sealed class BranchCommand : IRunnerCommand
         show ??= host.DiagnosticColumns.Count > 0 ? host.DiagnosticColumns[0].Name : host.StateColumns[0].Name;
 
         using var output = OutputFolder.Begin(pr.GetValue(_common.Out)!, pr.GetValue(_common.Replace));
-        var options = new ContinuationOptions
-        {
-            ParameterMin = from,
-            ParameterMax = to,
-            ParameterScale = to - from,
-            InitialStep = maxStep / 10,
-            MaxStep = maxStep,
-            MinStep = 1e-9,
-            MaxPoints = maxPoints,
-            StateScale = host.StateScale,
-            Validity = host.Validity,
-        };
-        var branch = Continuation.Trace(host.System, k, start.State.AsSpan(), p, options);
+        var options = ModelChoiceOptions.Continuation(host, from, to, maxStep, maxPoints);
+        var branch = Model.Analysis.Continuation.Trace(host.System, k, start.State.AsSpan(), p, options);
         string paramName = host.System.GetParameterName(k);
         var meta = ResolvedConfig.Metadata(host.ResolvedSettings, "branch", new Dictionary<string, string>
         {

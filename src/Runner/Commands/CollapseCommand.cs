@@ -84,11 +84,7 @@ public sealed class CollapseCommand : IRunnerCommand
         }
 
         double lo = Math.Min(a, b), hi = Math.Max(a, b);
-        var branch = Continuation.Trace(host.System, k, start.State.AsSpan(), p, new ContinuationOptions
-        {
-            ParameterMin = lo, ParameterMax = hi, ParameterScale = hi - lo, InitialStep = 0.01, MaxStep = 0.1,
-            StateScale = host.StateScale, Validity = host.Validity,
-        });
+        var branch = Model.Analysis.Continuation.Trace(host.System, k, start.State.AsSpan(), p, ModelChoiceOptions.Continuation(host, lo, hi));
         ThresholdResult result;
         try
         {
