@@ -69,7 +69,7 @@ public sealed class ConfigLoaderTests : IDisposable
     {
         var e = Assert.Throws<ConfigurationException>(() => ConfigLoader.Load<Settings>(
             new ConfigRequest { Sets = ["Orbit:FixedObliquityDeg=95"], Environment = NoEnv }));
-        Assert.Contains("Orbit:FixedObliquityDeg = 95", e.Message);
+        Assert.StartsWith("Orbit:FixedObliquityDeg = 95", e.Message); // the key exactly as typed, no stray separator
         Assert.Contains(">= 0 and <= 90 deg", e.Message);
     }
 

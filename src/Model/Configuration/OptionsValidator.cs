@@ -35,19 +35,19 @@ public static class OptionsValidator
         if (IsLeaf(type)) return;
         if (node is IDictionary dict)
         {
-            foreach (DictionaryEntry e in dict) CheckValue(e.Value, $"{path}:{e.Key}", null, problems, depth);
+            foreach (DictionaryEntry e in dict) CheckValue(e.Value, Join(path, e.Key?.ToString() ?? ""), null, problems, depth);
             return;
         }
         if (node is IEnumerable list and not string)
         {
             int i = 0;
-            foreach (var item in list) CheckValue(item, $"{path}:{i++}", null, problems, depth);
+            foreach (var item in list) CheckValue(item, Join(path, (i++).ToString(CultureInfo.InvariantCulture)), null, problems, depth);
             return;
         }
         foreach (var prop in type.GetProperties(BindingFlags.Public | BindingFlags.Instance))
         {
             if (prop.GetIndexParameters().Length > 0 || !prop.CanRead) continue;
-            CheckValue(prop.GetValue(node), $"{path}:{prop.Name}", prop.GetCustomAttribute<ParameterAttribute>(), problems, depth);
+            CheckValue(prop.GetValue(node), Join(path, prop.Name), prop.GetCustomAttribute<ParameterAttribute>(), problems, depth);
         }
         if (node is ISelfValidating self) problems.AddRange(self.Validate(path));
     }
@@ -103,6 +103,8 @@ public static class OptionsValidator
             _ => $"{lo} and {hi}{unit}",
         };
     }
+
+    private static string Join(string path, string key) => path.Length == 0 ? key : path + ":" + key;
 
     private static bool IsLeaf(Type t) =>
         t.IsPrimitive || t.IsEnum || t == typeof(string) || t == typeof(decimal) || t == typeof(DateTime) || t == typeof(TimeSpan);
