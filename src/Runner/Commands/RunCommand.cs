@@ -114,12 +114,14 @@ public sealed class RunCommand : IRunnerCommand
         if (sink.Kept.Count == 0) return;
         var first = sink.Kept[0];
         var last = sink.Kept[^1];
-        var rows = new List<string[]> { new[] { "quantity", "start", "end", "unit" } };
+        // Minimum and maximum over the (thinned) rows show a collapse that start and end would hide.
+        var rows = new List<string[]> { new[] { "quantity", "start", "minimum", "maximum", "end", "unit" } };
         foreach (var name in Headline)
         {
             int i = sink.Columns.ToList().FindIndex(c => c.Name == name);
             if (i < 0) continue;
-            rows.Add([name, first[i].ToString("F3", CultureInfo.InvariantCulture), last[i].ToString("F3", CultureInfo.InvariantCulture), sink.Columns[i].Unit]);
+            string F(double v) => v.ToString("F3", CultureInfo.InvariantCulture);
+            rows.Add([name, F(first[i]), F(sink.Kept.Min(r => r[i])), F(sink.Kept.Max(r => r[i])), F(last[i]), sink.Columns[i].Unit]);
         }
         TextTable.Write(o, rows);
     }
