@@ -51,4 +51,18 @@ public static class ParameterLookup
             throw new ArgumentOutOfRangeException(argumentName, index,
                 $"Parameter index {index} is out of range: the system has {system.ParameterCount} parameters (0 … {system.ParameterCount - 1}).");
     }
+
+    /// <summary>
+    /// Checks the arguments shared by the transient-run analyses: a valid parameter index, an initial
+    /// state of the system's dimension and a full parameter vector. Returns the parameter's name.
+    /// </summary>
+    public static string CheckRunArguments(IParametricSystem system, int parameterIndex, ReadOnlySpan<double> initialState, ReadOnlySpan<double> parameters)
+    {
+        CheckIndex(system, parameterIndex);
+        int n = system.Dimension;
+        if (initialState.Length != n) throw new ArgumentException($"The initial state has {initialState.Length} entries; the system has {n} state variables.", nameof(initialState));
+        if (parameters.Length != system.ParameterCount)
+            throw new ArgumentException($"Got {parameters.Length} parameter values; the system has {system.ParameterCount} parameters.", nameof(parameters));
+        return system.GetParameterName(parameterIndex);
+    }
 }

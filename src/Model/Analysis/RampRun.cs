@@ -140,13 +140,9 @@ public static class RampRun
     {
         ArgumentNullException.ThrowIfNull(system);
         ArgumentNullException.ThrowIfNull(options);
-        ParameterLookup.CheckIndex(system, parameterIndex);
-        string name = system.GetParameterName(parameterIndex);
+        string name = ParameterLookup.CheckRunArguments(system, parameterIndex, initialState, parameters);
         options.Validate(name);
         int n = system.Dimension;
-        if (initialState.Length != n) throw new ArgumentException($"The initial state has {initialState.Length} entries; the system has {n} state variables.", nameof(initialState));
-        if (parameters.Length != system.ParameterCount)
-            throw new ArgumentException($"Got {parameters.Length} parameter values; the system has {system.ParameterCount} parameters.", nameof(parameters));
         var p = parameters.ToArray();
         p[parameterIndex] = options.StartValue;
         var state = initialState.ToArray();

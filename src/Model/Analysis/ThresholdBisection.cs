@@ -125,13 +125,9 @@ public static class ThresholdBisection
     {
         ArgumentNullException.ThrowIfNull(system);
         ArgumentNullException.ThrowIfNull(options);
-        ParameterLookup.CheckIndex(system, parameterIndex);
-        string name = system.GetParameterName(parameterIndex);
+        string name = ParameterLookup.CheckRunArguments(system, parameterIndex, initialState, parameters);
         options.Validate(name);
         int n = system.Dimension;
-        if (initialState.Length != n) throw new ArgumentException($"The initial state has {initialState.Length} entries; the system has {n} state variables.", nameof(initialState));
-        if (parameters.Length != system.ParameterCount)
-            throw new ArgumentException($"Got {parameters.Length} parameter values; the system has {system.ParameterCount} parameters.", nameof(parameters));
         var x0 = initialState.ToArray();
         double start = options.Diagnostic(x0);
         if (!double.IsFinite(start)) throw new ArgumentException($"The diagnostic of the initial state is {start}; it must be finite.", nameof(initialState));

@@ -160,13 +160,7 @@ public sealed class BranchCommand : IRunnerCommand
         if (startAt < from || startAt > to)
             throw new ConfigurationException($"--start-at = {startAt.ToString("G6", CultureInfo.InvariantCulture)} lies outside the range {from.ToString("G6", CultureInfo.InvariantCulture)} to {to.ToString("G6", CultureInfo.InvariantCulture)}");
         var (host, p, start) = _model.Prepare(pr, probe, k, startAt);
-        string? show = pr.GetValue(_show);
-        var columns = host.StateColumns.Concat(host.DiagnosticColumns).ToList();
-        if (show is not null && columns.All(c => c.Name != show))
-            throw new ConfigurationException($"--show '{show}' is not a column of model '{host.Name}'" +
-                (KeySuggester.Closest(show, columns.Select(c => c.Name)) is { } near ? $"; did you mean '{near}'?" : "") +
-                $" Columns: {string.Join(", ", columns.Select(c => c.Name))}");
-        show ??= host.DiagnosticColumns.Count > 0 ? host.DiagnosticColumns[0].Name : host.StateColumns[0].Name;
+        int show = ColumnReader.Find(host, pr.GetValue(_show), "--show");
 
         using var output = OutputFolder.Begin(pr.GetValue(_common.Out)!, pr.GetValue(_common.Replace));
         var options = ModelChoiceOptions.Continuation(host, from, to, maxStep, maxPoints);

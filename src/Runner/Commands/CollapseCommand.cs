@@ -66,22 +66,12 @@ public sealed class CollapseCommand : IRunnerCommand
 
         var host = ModelHosts.Create(pr.GetValue(_model.Model)!, settings);
         int k = ModelChoiceOptions.ParameterIndex(host, pr.GetValue(_vary)!, "--vary");
-        var columns = host.StateColumns.Concat(host.DiagnosticColumns).ToList();
-        string watch = pr.GetValue(_watch) ?? (host.DiagnosticColumns.Count > 0 ? host.DiagnosticColumns[0].Name : host.StateColumns[0].Name);
-        int wi = columns.FindIndex(c => c.Name == watch);
-        if (wi < 0)
-            throw new ConfigurationException($"--watch '{watch}' is not a column of model '{host.Name}'" +
-                (KeySuggester.Closest(watch, columns.Select(c => c.Name)) is { } near ? $"; did you mean '{near}'?" : "") + $" Columns: {string.Join(", ", columns.Select(c => c.Name))}");
+        int wi = ColumnReader.Find(host, pr.GetValue(_watch), "--watch");
         var (_, p, start) = _model.Prepare(pr, host, k, a);
-        int nState = host.StateColumns.Count;
-        var diagBuffer = new double[host.DiagnosticColumns.Count];
-        var pFixed = (double[])p.Clone();
-        double Watch(ReadOnlySpan<double> y)
-        {
-            if (wi < nState) return y[wi];
-            host.Diagnostics(0, y, pFixed, diagBuffer);
-            return diagBuffer[wi - nState];
-        }
+        // Diagnostics are evaluated with the run's other parameters (the searched one at its start value).
+        var watchReader = new ColumnReader(host, wi, p, k);
+        string watch = watchReader.Column.Name;
+        double Watch(ReadOnlySpan<double> y) => watchReader.Value(y, a);
 
         double lo = Math.Min(a, b), hi = Math.Max(a, b);
         var branch = Model.Analysis.Continuation.Trace(host.System, k, start.State.AsSpan(), p, ModelChoiceOptions.Continuation(host, lo, hi));
@@ -130,7 +120,7 @@ public sealed class CollapseCommand : IRunnerCommand
             new ColumnSpec("parameter_value", "", $"value of {pname}"),
             new ColumnSpec("collapsed", "1", $"1 if {watch} fell below the level within the run", ColumnKind.Int64),
             new ColumnSpec("collapse_time", "time", "time of the collapse since the start of the run (NaN if none)"),
-            new ColumnSpec("final_" + watch, columns[wi].Unit, $"{watch} at the end of the run (or at collapse)"),
+            new ColumnSpec("final_" + watch, watchReader.Column.Unit, $"{watch} at the end of the run (or at collapse)"),
         ], meta))
         {
             for (int i = 0; i < result.Runs.Count; i++)

@@ -58,21 +58,11 @@ internal static class BranchFigure
         _ => MarkerShape.OpenSquare,
     };
 
-    public static void Draw(string path, IModelHost host, Branch branch, double[] parameters, string show, string parameterName)
+    public static void Draw(string path, IModelHost host, Branch branch, double[] parameters, int column, string parameterName)
     {
-        var cols = host.StateColumns.Concat(host.DiagnosticColumns).ToList();
-        int col = cols.FindIndex(c => c.Name == show);
-        int nState = host.StateColumns.Count;
-        var p = (double[])parameters.Clone();
-        var diag = new double[host.DiagnosticColumns.Count];
-        double Y(IReadOnlyList<double> state, double param)
-        {
-            if (col < nState) return state[col];
-            p[branch.ParameterIndex] = param;
-            host.Diagnostics(0, state.ToArray(), p, diag);
-            return diag[col - nState];
-        }
-        var unit = cols[col].Unit;
+        var reader = new ColumnReader(host, column, parameters, branch.ParameterIndex);
+        double Y(IReadOnlyList<double> state, double param) => reader.Value(state.ToArray(), param);
+        var (show, unit) = (reader.Column.Name, reader.Column.Unit);
         var plt = Figures.NewPlot($"{host.Name}: equilibria against {parameterName}", parameterName, string.IsNullOrEmpty(unit) || unit == "1" ? show : $"{show} ({unit})");
 
         // Split into runs of equal stability; each run drawn solid (stable) or dashed.

@@ -10,20 +10,11 @@ internal static class CollapseFigure
     public static void Draw(string path, IModelHost host, Branch branch, double[] parameters, int column, ThresholdResult result,
         RampTrajectory? ramp, RampComparison? comparison)
     {
-        var cols = host.StateColumns.Concat(host.DiagnosticColumns).ToList();
-        int nState = host.StateColumns.Count;
-        var p = (double[])parameters.Clone();
-        var diag = new double[host.DiagnosticColumns.Count];
-        double Y(IReadOnlyList<double> state, double param, double t = 0)
-        {
-            if (column < nState) return state[column];
-            p[branch.ParameterIndex] = param;
-            host.Diagnostics(t, state.ToArray(), p, diag);
-            return diag[column - nState];
-        }
-        var unit = cols[column].Unit;
+        var reader = new ColumnReader(host, column, parameters, branch.ParameterIndex);
+        double Y(IReadOnlyList<double> state, double param, double t = 0) => reader.Value(state.ToArray(), param, t);
+        var (name, unit) = (reader.Column.Name, reader.Column.Unit);
         var plt = Figures.NewPlot($"{host.Name}: collapse threshold in {branch.ParameterName}", branch.ParameterName,
-            string.IsNullOrEmpty(unit) || unit == "1" ? cols[column].Name : $"{cols[column].Name} ({unit})");
+            string.IsNullOrEmpty(unit) || unit == "1" ? name : $"{name} ({unit})");
         var pts = branch.Points;
         var stable = plt.Add.Scatter(pts.Select(q => q.Parameter).ToArray(), pts.Select(q => Y(q.State, q.Parameter)).ToArray());
         stable.MarkerSize = 0;
