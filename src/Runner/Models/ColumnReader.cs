@@ -43,13 +43,13 @@ public sealed class ColumnReader
 
     /// <summary>
     /// Index of the column named <paramref name="name"/> (default: the first diagnostic, else the
-    /// first state variable); an unknown name is an error naming the closest column and all of them.
+    /// first state variable), matched case-insensitively; an unknown name is an error naming the closest column and all of them.
     /// </summary>
     public static int Find(IModelHost host, string? name, string option)
     {
         var columns = host.StateColumns.Concat(host.DiagnosticColumns).Select(c => c.Name).ToList();
         name ??= host.DiagnosticColumns.Count > 0 ? host.DiagnosticColumns[0].Name : host.StateColumns[0].Name;
-        int i = columns.IndexOf(name);
+        int i = columns.FindIndex(c => string.Equals(c, name, StringComparison.OrdinalIgnoreCase));
         if (i >= 0) return i;
         throw new ConfigurationException($"{option} '{name}' is not a column of model '{host.Name}'" +
             (KeySuggester.Closest(name, columns) is { } near ? $"; did you mean '{near}'?" : "") +
