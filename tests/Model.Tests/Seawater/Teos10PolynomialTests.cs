@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using System.Globalization;
 using Thermostrat.Model.Seawater;
 using Xunit;
@@ -56,9 +57,30 @@ public sealed class Teos10PolynomialTests
         }
     }
 
+    [Fact]
+    public void GeneratedKernelsAreUpToDateWithTheirGenerator()
+    {
+        // tools/generate-teos10-kernels.py --check regenerates Teos10Kernels.g.cs in memory and compares (Debian's
+        // /usr/bin/python3, which .ci/run provides for python3-gsw).
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "Thermostrat.slnx"))) dir = dir.Parent;
+        Assert.NotNull(dir);
+        var psi = new ProcessStartInfo("/usr/bin/python3", [Path.Combine(dir.FullName, "tools", "generate-teos10-kernels.py"), "--check"])
+        {
+            RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
+        };
+        using var proc = Process.Start(psi)!;
+        string stdout = proc.StandardOutput.ReadToEnd();
+        string stderr = proc.StandardError.ReadToEnd();
+        proc.WaitForExit();
+        Assert.True(proc.ExitCode == 0, stderr);
+        Assert.Contains("up to date", stdout);
+    }
+
     [Theory]
     [InlineData("i,j,k,coefficient\n0,0,0,1e-3\n0,0,0,2e-3\n", "appears twice")]
     [InlineData("i,j,k,coefficient\n0,0,7,1e-3\n", "exceed total degree")]
+    [InlineData("i,j,k,coefficient\n3,0,3,1e-3\n", "not a monomial of the 75-term polynomial")]
     [InlineData("i,j,k,coefficient\n0,0,x,1e-3\n", "line 2")]
     [InlineData("a,b,c\n", "expected the header")]
     [InlineData("i,j,k,coefficient\n0,0,0,1e-3\n", "found 1 terms, expected 75")]
