@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Runtime.InteropServices;
 
 namespace Thermostrat.Bench;
 
@@ -55,7 +56,83 @@ public sealed class BenchContext(TextWriter output, bool quick)
         return GC.GetAllocatedBytesForCurrentThread() - before;
     }
 
+    /// <summary>
+    /// Steady-state cost of <paramref name="action"/> (which performs <paramref name="operationsPerCall"/> operations): runs it
+    /// for at least <paramref name="warmSeconds"/> and 40 calls first, so that tiered compilation (with its profile-guided
+    /// tier) has finished with every method it calls, then times <paramref name="samples"/> calls. Returns the least thread
+    /// CPU time per operation (the cost on an undisturbed core; wall time where thread CPU time is not available) and the
+    /// median wall time per operation.
+    /// </summary>
+    public (double BestNs, double MedianNs) SteadyNsPerOp(Action action, long operationsPerCall, double warmSeconds = 0.4, int samples = 31)
+    {
+        if (Quick) { samples = Math.Min(samples, 7); warmSeconds = Math.Min(warmSeconds, 0.2); }
+        var sw = Stopwatch.StartNew();
+        for (int i = 0; i < 40 || sw.Elapsed.TotalSeconds < warmSeconds; i++)
+        {
+            action();
+            if (sw.Elapsed.TotalSeconds > 10 * warmSeconds && i >= 40) break;
+        }
+        var wall = new double[samples];
+        double best = double.PositiveInfinity;
+        for (int i = 0; i < samples; i++)
+        {
+            long cpu0 = ThreadCpu.Available ? ThreadCpu.NowNs() : 0;
+            long start = Stopwatch.GetTimestamp();
+            action();
+            wall[i] = Stopwatch.GetElapsedTime(start).TotalNanoseconds / operationsPerCall;
+            double cpu = ThreadCpu.Available ? (ThreadCpu.NowNs() - cpu0) / (double)operationsPerCall : wall[i];
+            best = Math.Min(best, cpu);
+        }
+        Array.Sort(wall);
+        return (best, wall[samples / 2]);
+    }
+
     /// <summary>Prints one result row.</summary>
     public void Report(string what, double value, string unit, string? target = null) =>
         Out.WriteLine(target is null ? $"  {what,-60} {value,12:G4} {unit}" : $"  {what,-60} {value,12:G4} {unit}   (target {target})");
+
+    /// <summary>This thread's CPU time from <c>clock_gettime(CLOCK_THREAD_CPUTIME_ID)</c> (Linux).</summary>
+    public static class ThreadCpu
+    {
+        private const int ClockThreadCpuTimeId = 3;
+
+        [StructLayout(LayoutKind.Sequential)]
+        private struct Timespec
+        {
+            public long Seconds;
+            public long Nanoseconds;
+        }
+
+        [DllImport("libc", EntryPoint = "clock_gettime")]
+        private static extern int ClockGetTime(int clockId, out Timespec time);
+
+        public static bool Available { get; } = OperatingSystem.IsLinux() && Probe();
+
+        private static bool Probe()
+        {
+            try { return ClockGetTime(ClockThreadCpuTimeId, out _) == 0; }
+            catch (DllNotFoundException) { return false; }
+            catch (EntryPointNotFoundException) { return false; }
+        }
+
+        public static long NowNs()
+        {
+            ClockGetTime(ClockThreadCpuTimeId, out Timespec t);
+            return t.Seconds * 1_000_000_000L + t.Nanoseconds;
+        }
+
+        /// <summary>Least CPU time per operation over <paramref name="samples"/> calls: the cost on an undisturbed core.</summary>
+        public static double BestNsPerOp(Action action, long operationsPerCall, int samples)
+        {
+            action();
+            double best = double.PositiveInfinity;
+            for (int i = 0; i < samples; i++)
+            {
+                long start = NowNs();
+                action();
+                best = Math.Min(best, (NowNs() - start) / (double)operationsPerCall);
+            }
+            return best;
+        }
+    }
 }

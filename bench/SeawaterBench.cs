@@ -1,4 +1,3 @@
-using System.Runtime.InteropServices;
 using Thermostrat.Model.Analysis;
 using Thermostrat.Model.Seawater;
 
@@ -89,53 +88,8 @@ public static class SeawaterBench
     private static void Both(BenchContext context, string what, Action action, long ops, string? target)
     {
         context.Report(what + ", wall median", context.MedianNsPerOp(action, ops), "ns", target);
-        if (ThreadCpu.Available)
-            context.Report(what + ", thread CPU best", ThreadCpu.BestNsPerOp(action, ops, context.Quick ? 5 : 15), "ns", target);
-    }
-
-    /// <summary>This thread's CPU time from <c>clock_gettime(CLOCK_THREAD_CPUTIME_ID)</c> (Linux).</summary>
-    private static class ThreadCpu
-    {
-        private const int ClockThreadCpuTimeId = 3;
-
-        [StructLayout(LayoutKind.Sequential)]
-        private struct Timespec
-        {
-            public long Seconds;
-            public long Nanoseconds;
-        }
-
-        [DllImport("libc", EntryPoint = "clock_gettime")]
-        private static extern int ClockGetTime(int clockId, out Timespec time);
-
-        public static bool Available { get; } = OperatingSystem.IsLinux() && Probe();
-
-        private static bool Probe()
-        {
-            try { return ClockGetTime(ClockThreadCpuTimeId, out _) == 0; }
-            catch (DllNotFoundException) { return false; }
-            catch (EntryPointNotFoundException) { return false; }
-        }
-
-        private static long NowNs()
-        {
-            ClockGetTime(ClockThreadCpuTimeId, out Timespec t);
-            return t.Seconds * 1_000_000_000L + t.Nanoseconds;
-        }
-
-        /// <summary>Least CPU time per operation over <paramref name="samples"/> calls: the cost on an undisturbed core.</summary>
-        public static double BestNsPerOp(Action action, long operationsPerCall, int samples)
-        {
-            action();
-            double best = double.PositiveInfinity;
-            for (int i = 0; i < samples; i++)
-            {
-                long start = NowNs();
-                action();
-                best = Math.Min(best, (NowNs() - start) / (double)operationsPerCall);
-            }
-            return best;
-        }
+        if (BenchContext.ThreadCpu.Available)
+            context.Report(what + ", thread CPU best", BenchContext.ThreadCpu.BestNsPerOp(action, ops, context.Quick ? 5 : 15), "ns", target);
     }
 
     private static string Label(Quantity q) => q switch

@@ -93,72 +93,185 @@ internal static class VectorOps
 }
 
 /// <summary>Fused stage combinations over a flat stage array K (stage j at K[j·n .. j·n + n)).</summary>
-[SkipLocalsInit] // the stack buffers below are written before they are read; zeroing them cost ~10 % of an explicit step
+/// <remarks>
+/// Each combination of up to eight stages is one pass over the components: a kernel compiled for its number of terms
+/// (<see cref="ITermCount"/>) keeps the broadcast coefficients in registers and adds the terms to y in stage order, so the
+/// result is the same in every bit as the plain loop y_i + a₀K₀ᵢ + a₁K₁ᵢ + … . More than eight stages take further
+/// passes over the output. Replacing an inner loop over the stages by these passes, and fusing the error estimate with its
+/// norm, took the work of a Dormand–Prince step of a 20-variable system from about 370 ns to about 280–300 ns beyond the
+/// right-hand side on the project's machine (bench/OdeBench.cs, y' = −y).
+/// </remarks>
 internal static class StageOps
 {
-    /// <summary>Most stages whose broadcast coefficients go on the stack.</summary>
-    private const int MaxStackStages = 16;
+    /// <summary>Most stages per pass.</summary>
+    private const int MaxTerms = 8;
+
+    /// <summary>A compile-time term count for the kernels.</summary>
+    private interface ITermCount
+    {
+        static abstract int Count { get; }
+    }
+
+    private readonly struct T1 : ITermCount { public static int Count => 1; }
+    private readonly struct T2 : ITermCount { public static int Count => 2; }
+    private readonly struct T3 : ITermCount { public static int Count => 3; }
+    private readonly struct T4 : ITermCount { public static int Count => 4; }
+    private readonly struct T5 : ITermCount { public static int Count => 5; }
+    private readonly struct T6 : ITermCount { public static int Count => 6; }
+    private readonly struct T7 : ITermCount { public static int Count => 7; }
+    private readonly struct T8 : ITermCount { public static int Count => 8; }
 
     /// <summary>output_i = y_i + h Σ_{j &lt; count} a_j K[j·n + i]. <paramref name="output"/> may be <paramref name="y"/>.</summary>
     public static void Combine(ReadOnlySpan<double> y, double h, ReadOnlySpan<double> a, int count, ReadOnlySpan<double> k, int n, Span<double> output)
     {
-        if (y.Length < n || output.Length < n || a.Length < count || k.Length < count * n || count > MaxStackStages) ThrowShort();
-        ref double ry = ref MemoryMarshal.GetReference(y);
-        ref double rk = ref MemoryMarshal.GetReference(k);
+        if (y.Length < n || output.Length < n || a.Length < count || k.Length < count * n) ThrowShort();
         ref double ro = ref MemoryMarshal.GetReference(output);
-        Span<double> ha = stackalloc double[MaxStackStages];
-        for (int j = 0; j < count; j++) ha[j] = h * a[j];
-        int i = 0;
-        int w = Vector<double>.Count;
-        if (Vector.IsHardwareAccelerated && n >= w)
+        ref double from = ref MemoryMarshal.GetReference(y);
+        ref double rk = ref MemoryMarshal.GetReference(k);
+        if (count == 0)
         {
-            Span<Vector<double>> va = stackalloc Vector<double>[MaxStackStages];
-            for (int j = 0; j < count; j++) va[j] = new Vector<double>(ha[j]);
-            for (; i <= n - w; i += w)
-            {
-                var acc = Vector.LoadUnsafe(ref ry, (nuint)i);
-                for (int j = 0; j < count; j++)
-                    acc += va[j] * Vector.LoadUnsafe(ref rk, (nuint)(j * n + i));
-                acc.StoreUnsafe(ref ro, (nuint)i);
-            }
+            if (!Unsafe.AreSame(ref from, ref ro)) y[..n].CopyTo(output);
+            return;
         }
-        for (; i < n; i++)
+        for (int j = 0; j < count; j += MaxTerms)
         {
-            double acc = Unsafe.Add(ref ry, i);
-            for (int j = 0; j < count; j++) acc += ha[j] * Unsafe.Add(ref rk, j * n + i);
-            Unsafe.Add(ref ro, i) = acc;
+            int m = Math.Min(MaxTerms, count - j);
+            PassAny(ref from, true, ref Unsafe.Add(ref rk, j * n), n, h, a.Slice(j, m), m, ref ro);
+            from = ref ro;
         }
     }
 
     /// <summary>
-    /// The weighted RMS norm (see <see cref="VectorOps.ErrorNorm"/>) of e = h Σ_j E_j K_j, without storing e.
+    /// The weighted RMS norm (see <see cref="VectorOps.ErrorNorm"/>) of e = h Σ_j E_j K_j, fused with forming e when at most
+    /// eight stages take part; otherwise e is formed in <paramref name="scratch"/> (length ≥ n) first.
     /// </summary>
     public static double ErrorNorm(double h, ReadOnlySpan<double> e, int count, ReadOnlySpan<double> k, int n,
-        ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol)
+        ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol, Span<double> scratch)
     {
         if (n == 0) return 0.0;
-        if (y.Length < n || yNew.Length < n || atol.Length < n || e.Length < count || k.Length < count * n || count > MaxStackStages) ThrowShort();
+        if (y.Length < n || yNew.Length < n || atol.Length < n || e.Length < count || k.Length < count * n || scratch.Length < n) ThrowShort();
+        if (count == 0) return 0.0;
         ref double rk = ref MemoryMarshal.GetReference(k);
         ref double ry = ref MemoryMarshal.GetReference(y);
         ref double rn = ref MemoryMarshal.GetReference(yNew);
         ref double ra = ref MemoryMarshal.GetReference(atol);
-        Span<double> he = stackalloc double[MaxStackStages];
-        for (int j = 0; j < count; j++) he[j] = h * e[j];
+        if (count > MaxTerms)
+        {
+            // e = h Σ E_j K_j in the scratch vector (chunks of eight stages), then its norm.
+            ref double rs = ref MemoryMarshal.GetReference(scratch);
+            for (int j = 0; j < count; j += MaxTerms)
+            {
+                int m = Math.Min(MaxTerms, count - j);
+                PassAny(ref rs, j > 0, ref Unsafe.Add(ref rk, j * n), n, h, e.Slice(j, m), m, ref rs);
+            }
+            return VectorOps.ErrorNorm(scratch[..n], y[..n], yNew[..n], atol[..n], rtol);
+        }
+        double s = count switch
+        {
+            1 => NormPass<T1>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            2 => NormPass<T2>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            3 => NormPass<T3>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            4 => NormPass<T4>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            5 => NormPass<T5>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            6 => NormPass<T6>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            7 => NormPass<T7>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+            _ => NormPass<T8>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
+        };
+        return Math.Sqrt(s / n);
+    }
+
+    /// <summary>A pass of <paramref name="m"/> ≤ 8 terms by its kernel.</summary>
+    private static void PassAny(ref double from, bool load, ref double k0, int n, double h, ReadOnlySpan<double> c, int m, ref double o)
+    {
+        switch (m)
+        {
+            case 1: Pass<T1>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 2: Pass<T2>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 3: Pass<T3>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 4: Pass<T4>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 5: Pass<T5>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 6: Pass<T6>(ref from, load, ref k0, n, h, c, ref o); break;
+            case 7: Pass<T7>(ref from, load, ref k0, n, h, c, ref o); break;
+            default: Pass<T8>(ref from, load, ref k0, n, h, c, ref o); break;
+        }
+    }
+
+    /// <summary>
+    /// One pass: out_i = (from_i if <paramref name="load"/>, else 0) + Σ_{j &lt; TTerms.Count} (h c_j) K_j,i with K_j at k0 + j·n,
+    /// the terms added in stage order. <paramref name="from"/> may be <paramref name="o"/>.
+    /// </summary>
+    /// <remarks>The JIT compiles one copy per term count, in which the tests on TTerms.Count are constants: the unused
+    /// terms vanish and the used ones keep their broadcast coefficients in registers.</remarks>
+    private static void Pass<TTerms>(ref double from, bool load, ref double k0, int n, double h, ReadOnlySpan<double> c, ref double o)
+        where TTerms : struct, ITermCount
+    {
+        int m = TTerms.Count;
+        if (c.Length < m) ThrowShort();
+        int i = 0;
+        int w = Vector<double>.Count;
+        if (Vector.IsHardwareAccelerated && n >= w)
+        {
+            Vector<double> v0 = m > 0 ? new(h * c[0]) : default, v1 = m > 1 ? new(h * c[1]) : default, v2 = m > 2 ? new(h * c[2]) : default, v3 = m > 3 ? new(h * c[3]) : default, v4 = m > 4 ? new(h * c[4]) : default, v5 = m > 5 ? new(h * c[5]) : default, v6 = m > 6 ? new(h * c[6]) : default, v7 = m > 7 ? new(h * c[7]) : default;
+            for (; i <= n - w; i += w)
+            {
+                nuint u = (nuint)i;
+                var acc = load ? Vector.LoadUnsafe(ref from, u) : Vector<double>.Zero;
+                if (m > 0) acc += v0 * Vector.LoadUnsafe(ref k0, u);
+                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 1 * n), u);
+                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 2 * n), u);
+                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 3 * n), u);
+                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 4 * n), u);
+                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 5 * n), u);
+                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 6 * n), u);
+                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 7 * n), u);
+                acc.StoreUnsafe(ref o, u);
+            }
+        }
+        for (; i < n; i++)
+        {
+            double acc = load ? Unsafe.Add(ref from, i) : 0.0;
+            if (m > 0) acc += h * c[0] * Unsafe.Add(ref k0, 0 * n + i);
+            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k0, 1 * n + i);
+            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k0, 2 * n + i);
+            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k0, 3 * n + i);
+            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k0, 4 * n + i);
+            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k0, 5 * n + i);
+            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k0, 6 * n + i);
+            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k0, 7 * n + i);
+            Unsafe.Add(ref o, i) = acc;
+        }
+    }
+
+    /// <summary>
+    /// One pass of the fused error norm: Σ_i (e_i / sc_i)² with e_i = Σ_{j &lt; TTerms.Count} (h c_j) K_j,i (stage order) and
+    /// sc_i = atol_i + rtol·max(|y_i|, |ŷ_i|); returns the sum of squares.
+    /// </summary>
+    private static double NormPass<TTerms>(ref double k0, int n, double h, ReadOnlySpan<double> c, ref double ry, ref double rn, ref double ra, double rtol)
+        where TTerms : struct, ITermCount
+    {
+        int m = TTerms.Count;
+        if (c.Length < m) ThrowShort();
         int i = 0;
         double s = 0.0;
         int w = Vector<double>.Count;
         if (Vector.IsHardwareAccelerated && n >= w)
         {
-            Span<Vector<double>> ve = stackalloc Vector<double>[MaxStackStages];
-            for (int j = 0; j < count; j++) ve[j] = new Vector<double>(he[j]);
+            Vector<double> v0 = m > 0 ? new(h * c[0]) : default, v1 = m > 1 ? new(h * c[1]) : default, v2 = m > 2 ? new(h * c[2]) : default, v3 = m > 3 ? new(h * c[3]) : default, v4 = m > 4 ? new(h * c[4]) : default, v5 = m > 5 ? new(h * c[5]) : default, v6 = m > 6 ? new(h * c[6]) : default, v7 = m > 7 ? new(h * c[7]) : default;
             var vr = new Vector<double>(rtol);
             var sum = Vector<double>.Zero;
             for (; i <= n - w; i += w)
             {
+                nuint u = (nuint)i;
                 var acc = Vector<double>.Zero;
-                for (int j = 0; j < count; j++)
-                    acc += ve[j] * Vector.LoadUnsafe(ref rk, (nuint)(j * n + i));
-                var sc = Vector.LoadUnsafe(ref ra, (nuint)i) + vr * Vector.Max(Vector.Abs(Vector.LoadUnsafe(ref ry, (nuint)i)), Vector.Abs(Vector.LoadUnsafe(ref rn, (nuint)i)));
+                if (m > 0) acc += v0 * Vector.LoadUnsafe(ref k0, u);
+                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 1 * n), u);
+                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 2 * n), u);
+                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 3 * n), u);
+                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 4 * n), u);
+                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 5 * n), u);
+                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 6 * n), u);
+                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 7 * n), u);
+                var sc = Vector.LoadUnsafe(ref ra, u) + vr * Vector.Max(Vector.Abs(Vector.LoadUnsafe(ref ry, u)), Vector.Abs(Vector.LoadUnsafe(ref rn, u)));
                 var q = acc / sc;
                 sum += q * q;
             }
@@ -167,12 +280,19 @@ internal static class StageOps
         for (; i < n; i++)
         {
             double acc = 0.0;
-            for (int j = 0; j < count; j++) acc += he[j] * Unsafe.Add(ref rk, j * n + i);
+            if (m > 0) acc += h * c[0] * Unsafe.Add(ref k0, 0 * n + i);
+            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k0, 1 * n + i);
+            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k0, 2 * n + i);
+            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k0, 3 * n + i);
+            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k0, 4 * n + i);
+            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k0, 5 * n + i);
+            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k0, 6 * n + i);
+            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k0, 7 * n + i);
             double sc = Unsafe.Add(ref ra, i) + rtol * Math.Max(Math.Abs(Unsafe.Add(ref ry, i)), Math.Abs(Unsafe.Add(ref rn, i)));
             double q = acc / sc;
             s += q * q;
         }
-        return Math.Sqrt(s / n);
+        return s;
     }
 
     [MethodImpl(MethodImplOptions.NoInlining)]

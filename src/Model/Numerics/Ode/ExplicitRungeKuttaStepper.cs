@@ -1,3 +1,6 @@
+using System.Numerics;
+using System.Runtime.InteropServices;
+
 namespace Thermostrat.Model.Numerics.Ode;
 
 /// <summary>The shared step of every explicit Runge–Kutta tableau (<see cref="ExplicitTableau"/>), in FSAL form.</summary>
@@ -7,6 +10,7 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
     private readonly double[] _k;      // stages, flat: stage s at [s·n, s·n + n)
     private readonly double[] _stage;  // argument of the current stage; after a step, that of the second-to-last stage
     private readonly double[] _weights;
+    private readonly double[] _error;  // the error estimate's vector, formed by the norm
     private readonly int _s;
 
     public ExplicitRungeKuttaStepper(ExplicitTableau tableau, int n, RhsFunction<double> f, WorkCounters counters) : base(n, f, counters)
@@ -18,6 +22,7 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
         _k = new double[_s * n];
         _stage = new double[n];
         _weights = new double[_s];
+        _error = new double[n];
     }
 
     public override OdeMethod Method => _tab.Method;
@@ -46,7 +51,7 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
             Evaluate(t + tab.C[s] * h, arg, k.Slice(s * n, n));
         }
         errorNorm = estimateError && tab.E is not null
-            ? StageOps.ErrorNorm(h, tab.E, _s, k, n, y, yNew, atol, rtol)
+            ? StageOps.ErrorNorm(h, tab.E, _s, k, n, y, yNew, atol, rtol, _error)
             : double.NaN;
         if (estimateError && tab.E is not null && double.IsFinite(errorNorm))
         {
@@ -85,10 +90,30 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
         // the dominant eigenvalue |λ|; here y₁ is the argument of stage First (kept in _stage) and y₂ = yNew (stage Second).
         int n = N;
         ReadOnlySpan<double> k1 = _k.AsSpan(st.First * n, n), k2 = _k.AsSpan(st.Second * n, n);
+        ReadOnlySpan<double> y1 = _stage.AsSpan(0, n), y2 = yNew[..n];
         double num = 0.0, den = 0.0;
-        for (int i = 0; i < n; i++)
+        int i = 0;
+        if (Vector.IsHardwareAccelerated && n >= Vector<double>.Count)
         {
-            double df = k2[i] - k1[i], dy = yNew[i] - _stage[i];
+            var vk1 = MemoryMarshal.Cast<double, Vector<double>>(k1);
+            var vk2 = MemoryMarshal.Cast<double, Vector<double>>(k2);
+            var vy1 = MemoryMarshal.Cast<double, Vector<double>>(y1);
+            var vy2 = MemoryMarshal.Cast<double, Vector<double>>(y2);
+            Vector<double> sf = Vector<double>.Zero, sy = Vector<double>.Zero;
+            for (int v = 0; v < vk1.Length; v++)
+            {
+                var df = vk2[v] - vk1[v];
+                var dy = vy2[v] - vy1[v];
+                sf += df * df;
+                sy += dy * dy;
+            }
+            num = Vector.Sum(sf);
+            den = Vector.Sum(sy);
+            i = vk1.Length * Vector<double>.Count;
+        }
+        for (; i < n; i++)
+        {
+            double df = k2[i] - k1[i], dy = y2[i] - y1[i];
             num += df * df;
             den += dy * dy;
         }

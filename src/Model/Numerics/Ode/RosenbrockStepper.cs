@@ -162,7 +162,7 @@ internal sealed class RosenbrockStepper : Stepper
         if (badIndex >= 0) return TrialOutcome.NonFinite;
         if (estimateError)
         {
-            errorNorm = StageOps.ErrorNorm(1.0, tab.E, _s, u, n, y, yNew, atol, rtol);
+            errorNorm = StageOps.ErrorNorm(1.0, tab.E, _s, u, n, y, yNew, atol, rtol, _scratch);
             if (double.IsNaN(errorNorm))
             {
                 for (int s = 0; s < _s && badIndex < 0; s++) badIndex = VectorOps.FirstNonFinite(u.Slice(s * n, n));
