@@ -120,19 +120,5 @@ public sealed class BenchContext(TextWriter output, bool quick)
             ClockGetTime(ClockThreadCpuTimeId, out Timespec t);
             return t.Seconds * 1_000_000_000L + t.Nanoseconds;
         }
-
-        /// <summary>Least CPU time per operation over <paramref name="samples"/> calls: the cost on an undisturbed core.</summary>
-        public static double BestNsPerOp(Action action, long operationsPerCall, int samples)
-        {
-            action();
-            double best = double.PositiveInfinity;
-            for (int i = 0; i < samples; i++)
-            {
-                long start = NowNs();
-                action();
-                best = Math.Min(best, (NowNs() - start) / (double)operationsPerCall);
-            }
-            return best;
-        }
     }
 }

@@ -19,9 +19,6 @@ public static class SeawaterBench
 {
     private const int Points = 4096;
 
-    /// <summary>Calls before timing, so that the loops and the kernels they call reach optimised (tier-1) code.</summary>
-    private const int WarmUpCalls = 60;
-
     private enum Quantity { Density, ThermalExpansion, HalineContraction }
 
     public static void Run(BenchContext context)
@@ -40,36 +37,16 @@ public static class SeawaterBench
         long ops = (long)Points * repeats;
         double sink = 0;
 
-        // Warm-up: tiered compilation promotes a method after 30 calls (and a short delay); the harness's own
-        // warm-up calls each action only three times.
+        // Each row warms its loop up until tiered compilation has finished with it (BenchContext.SteadyNsPerOp).
         foreach (string name in EquationsOfState.Names)
         {
             IEquationOfState eos = EquationsOfState.Create(name);
-            for (int n = 0; n < WarmUpCalls; n++)
-            {
-                foreach (Quantity q in Enum.GetValues<Quantity>()) sink += ViaInterface(eos, q, s, t, p, 1);
-            }
-        }
-        for (int n = 0; n < WarmUpCalls; n++)
-            foreach (Quantity q in Enum.GetValues<Quantity>()) sink += Direct(q, s, t, p, 1);
-        Thread.Sleep(500);
-
-        // The whole table is measured twice and only the second pass is printed: the first row of a single pass
-        // came out several times slower than a repeat of it (the timing path itself still warming up).
-        var silent = new BenchContext(TextWriter.Null, context.Quick);
-        for (int pass = 0; pass < 2; pass++)
-        {
-            BenchContext c = pass == 0 ? silent : context;
-            foreach (string name in EquationsOfState.Names)
-            {
-                IEquationOfState eos = EquationsOfState.Create(name);
-                string? target = name == EquationsOfState.Teos10Name ? "< 30 ns" : null;
-                foreach (Quantity q in Enum.GetValues<Quantity>())
-                    Both(c, $"{name}: {Label(q)} (interface)", () => sink += ViaInterface(eos, q, s, t, p, repeats), ops, target);
-            }
+            string? target = name == EquationsOfState.Teos10Name ? "< 30 ns" : null;
             foreach (Quantity q in Enum.GetValues<Quantity>())
-                Both(c, $"teos10: {Label(q)} (Teos10 static, direct)", () => sink += Direct(q, s, t, p, repeats), ops, "< 30 ns");
+                Both(context, $"{name}: {Label(q)} (interface)", () => sink += ViaInterface(eos, q, s, t, p, repeats), ops, target);
         }
+        foreach (Quantity q in Enum.GetValues<Quantity>())
+            Both(context, $"teos10: {Label(q)} (Teos10 static, direct)", () => sink += Direct(q, s, t, p, repeats), ops, "< 30 ns");
 
         var first = new WaterMass(35.3, 3.0);
         var second = new WaterMass(34.9, 4.0);
@@ -87,9 +64,9 @@ public static class SeawaterBench
 
     private static void Both(BenchContext context, string what, Action action, long ops, string? target)
     {
-        context.Report(what + ", wall median", context.MedianNsPerOp(action, ops), "ns", target);
-        if (BenchContext.ThreadCpu.Available)
-            context.Report(what + ", thread CPU best", BenchContext.ThreadCpu.BestNsPerOp(action, ops, context.Quick ? 5 : 15), "ns", target);
+        var (best, median) = context.SteadyNsPerOp(action, ops, warmSeconds: 0.25, samples: 15);
+        context.Report(what + ", wall median", median, "ns", target);
+        context.Report(what + ", thread CPU best", best, "ns", target);
     }
 
     private static string Label(Quantity q) => q switch
