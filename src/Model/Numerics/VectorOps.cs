@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using System.Numerics;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
@@ -45,10 +46,11 @@ internal static class VectorOps
     }
 
     /// <summary>
-    /// The weighted RMS norm of Hairer, Nørsett and Wanner (Solving ODEs I, Sect. II.4, eq. 4.11):
-    /// √(1/n Σ (e_i / sc_i)²) with sc_i = atol_i + rtol·max(|y_i|, |ŷ_i|).
+    /// The square of the weighted RMS norm of Hairer, Nørsett and Wanner (Solving ODEs I, Sect. II.4, eq. 4.11):
+    /// 1/n Σ (e_i / sc_i)² with sc_i = atol_i + rtol·max(|y_i|, |ŷ_i|). The square root is left to the caller: a step is
+    /// accepted when the square is ≤ 1, and the step-size controller works on its logarithm.
     /// </summary>
-    public static double ErrorNorm(ReadOnlySpan<double> e, ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol)
+    public static double ErrorMeanSquare(ReadOnlySpan<double> e, ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol)
     {
         int n = e.Length;
         if (n == 0) return 0.0;
@@ -66,7 +68,7 @@ internal static class VectorOps
             {
                 var sc = va[k] + vr * Vector.Max(Vector.Abs(vy[k]), Vector.Abs(vn[k]));
                 var q = ve[k] / sc;
-                acc += q * q;
+                acc += q * q + (vn[k] - vn[k]); // ŷ − ŷ: +0, or NaN for an overflowed ŷ (see StageOps.NormPass)
             }
             s = Vector.Sum(acc);
             i = ve.Length * Vector<double>.Count;
@@ -74,9 +76,9 @@ internal static class VectorOps
         for (; i < n; i++)
         {
             double q = e[i] / (atol[i] + rtol * Math.Max(Math.Abs(y[i]), Math.Abs(yNew[i])));
-            s += q * q;
+            s += q * q + (yNew[i] - yNew[i]);
         }
-        return Math.Sqrt(s / n);
+        return s / n;
     }
 
     /// <summary>Index of the first non-finite entry, or −1.</summary>
@@ -142,15 +144,18 @@ internal static class StageOps
     }
 
     /// <summary>
-    /// The weighted RMS norm (see <see cref="VectorOps.ErrorNorm"/>) of e = h Σ_j E_j K_j, fused with forming e when at most
-    /// eight stages take part; otherwise e is formed in <paramref name="scratch"/> (length ≥ n) first.
+    /// The square of the weighted RMS norm (see <see cref="VectorOps.ErrorMeanSquare"/>) of e = h Σ_j E_j K_j, fused with
+    /// forming e when at most eight stages take part; otherwise e is formed in <paramref name="scratch"/> (length ≥ n) first.
     /// </summary>
-    public static double ErrorNorm(double h, ReadOnlySpan<double> e, int count, ReadOnlySpan<double> k, int n,
+    /// <remarks>The mean is taken by multiplying with 1/n, which is computed while the pass runs, so that only a
+    /// multiplication (no division, no square root) follows the last stage on the way to the next step size.</remarks>
+    public static double ErrorMeanSquare(double h, ReadOnlySpan<double> e, int count, ReadOnlySpan<double> k, int n,
         ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, ReadOnlySpan<double> atol, double rtol, Span<double> scratch)
     {
         if (n == 0) return 0.0;
         if (y.Length < n || yNew.Length < n || atol.Length < n || e.Length < count || k.Length < count * n || scratch.Length < n) ThrowShort();
         if (count == 0) return 0.0;
+        double invN = 1.0 / n;
         ref double rk = ref MemoryMarshal.GetReference(k);
         ref double ry = ref MemoryMarshal.GetReference(y);
         ref double rn = ref MemoryMarshal.GetReference(yNew);
@@ -164,7 +169,7 @@ internal static class StageOps
                 int m = Math.Min(MaxTerms, count - j);
                 PassAny(ref rs, j > 0, ref Unsafe.Add(ref rk, j * n), n, h, e.Slice(j, m), m, ref rs);
             }
-            return VectorOps.ErrorNorm(scratch[..n], y[..n], yNew[..n], atol[..n], rtol);
+            return VectorOps.ErrorMeanSquare(scratch[..n], y[..n], yNew[..n], atol[..n], rtol);
         }
         double s = count switch
         {
@@ -177,8 +182,22 @@ internal static class StageOps
             7 => NormPass<T7>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
             _ => NormPass<T8>(ref rk, n, h, e, ref ry, ref rn, ref ra, rtol),
         };
-        return Math.Sqrt(s / n);
+        return s * invN;
     }
+
+    /// <summary>
+    /// output_i = y_i + h Σ_{j &lt; count} a_j K[j·n + i] for 1 ≤ count ≤ <see cref="MaxTerms"/>, without the length checks of
+    /// <see cref="Combine"/>: for a stepper's inner loop, whose buffers were sized once. The caller guarantees that y and output
+    /// hold n values, k holds count·n, and a holds count; <paramref name="output"/> may be <paramref name="y"/>.
+    /// </summary>
+    internal static void CombineSized(ref double y, double h, ReadOnlySpan<double> a, int count, ref double k, int n, ref double output)
+    {
+        Debug.Assert(count is >= 1 and <= MaxTerms && a.Length >= count);
+        PassAny(ref y, true, ref k, n, h, a, count, ref output);
+    }
+
+    /// <summary>Most stages one <see cref="CombineSized"/> pass takes.</summary>
+    internal const int MaxSizedTerms = MaxTerms;
 
     /// <summary>A pass of <paramref name="m"/> ≤ 8 terms by its kernel.</summary>
     private static void PassAny(ref double from, bool load, ref double k0, int n, double h, ReadOnlySpan<double> c, int m, ref double o)
@@ -201,96 +220,112 @@ internal static class StageOps
     /// the terms added in stage order. <paramref name="from"/> may be <paramref name="o"/>.
     /// </summary>
     /// <remarks>The JIT compiles one copy per term count, in which the tests on TTerms.Count are constants: the unused
-    /// terms vanish and the used ones keep their broadcast coefficients in registers.</remarks>
+    /// terms vanish, the used ones keep their broadcast coefficients in registers, and each stage's row is a reference fixed
+    /// before the loop, so a term costs one load and two arithmetic instructions per vector.</remarks>
     private static void Pass<TTerms>(ref double from, bool load, ref double k0, int n, double h, ReadOnlySpan<double> c, ref double o)
         where TTerms : struct, ITermCount
     {
         int m = TTerms.Count;
         if (c.Length < m) ThrowShort();
-        int i = 0;
-        int w = Vector<double>.Count;
-        if (Vector.IsHardwareAccelerated && n >= w)
+        ref double k1 = ref Unsafe.Add(ref k0, m > 1 ? 1 * n : 0);
+        ref double k2 = ref Unsafe.Add(ref k0, m > 2 ? 2 * n : 0);
+        ref double k3 = ref Unsafe.Add(ref k0, m > 3 ? 3 * n : 0);
+        ref double k4 = ref Unsafe.Add(ref k0, m > 4 ? 4 * n : 0);
+        ref double k5 = ref Unsafe.Add(ref k0, m > 5 ? 5 * n : 0);
+        ref double k6 = ref Unsafe.Add(ref k0, m > 6 ? 6 * n : 0);
+        ref double k7 = ref Unsafe.Add(ref k0, m > 7 ? 7 * n : 0);
+        nuint i = 0, count = (nuint)n;
+        nuint w = (nuint)Vector<double>.Count;
+        if (Vector.IsHardwareAccelerated && count >= w)
         {
             Vector<double> v0 = m > 0 ? new(h * c[0]) : default, v1 = m > 1 ? new(h * c[1]) : default, v2 = m > 2 ? new(h * c[2]) : default, v3 = m > 3 ? new(h * c[3]) : default, v4 = m > 4 ? new(h * c[4]) : default, v5 = m > 5 ? new(h * c[5]) : default, v6 = m > 6 ? new(h * c[6]) : default, v7 = m > 7 ? new(h * c[7]) : default;
-            for (; i <= n - w; i += w)
+            for (; i <= count - w; i += w)
             {
-                nuint u = (nuint)i;
-                var acc = load ? Vector.LoadUnsafe(ref from, u) : Vector<double>.Zero;
-                if (m > 0) acc += v0 * Vector.LoadUnsafe(ref k0, u);
-                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 1 * n), u);
-                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 2 * n), u);
-                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 3 * n), u);
-                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 4 * n), u);
-                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 5 * n), u);
-                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 6 * n), u);
-                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 7 * n), u);
-                acc.StoreUnsafe(ref o, u);
+                var acc = load ? Vector.LoadUnsafe(ref from, i) : Vector<double>.Zero;
+                if (m > 0) acc += v0 * Vector.LoadUnsafe(ref k0, i);
+                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref k1, i);
+                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref k2, i);
+                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref k3, i);
+                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref k4, i);
+                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref k5, i);
+                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref k6, i);
+                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref k7, i);
+                acc.StoreUnsafe(ref o, i);
             }
         }
-        for (; i < n; i++)
+        for (; i < count; i++)
         {
             double acc = load ? Unsafe.Add(ref from, i) : 0.0;
-            if (m > 0) acc += h * c[0] * Unsafe.Add(ref k0, 0 * n + i);
-            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k0, 1 * n + i);
-            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k0, 2 * n + i);
-            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k0, 3 * n + i);
-            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k0, 4 * n + i);
-            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k0, 5 * n + i);
-            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k0, 6 * n + i);
-            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k0, 7 * n + i);
+            if (m > 0) acc += h * c[0] * Unsafe.Add(ref k0, i);
+            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k1, i);
+            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k2, i);
+            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k3, i);
+            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k4, i);
+            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k5, i);
+            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k6, i);
+            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k7, i);
             Unsafe.Add(ref o, i) = acc;
         }
     }
 
     /// <summary>
     /// One pass of the fused error norm: Σ_i (e_i / sc_i)² with e_i = Σ_{j &lt; TTerms.Count} (h c_j) K_j,i (stage order) and
-    /// sc_i = atol_i + rtol·max(|y_i|, |ŷ_i|); returns the sum of squares.
+    /// sc_i = atol_i + rtol·max(|y_i|, |ŷ_i|); returns the sum of squares, or NaN when some ŷ_i is not finite.
     /// </summary>
+    /// <remarks>ŷ_i − ŷ_i is +0 for finite ŷ_i and NaN for ±∞ or NaN; adding it to each square leaves the sum's bits unchanged
+    /// (q² + 0 = q²) and makes an overflowed ŷ, whose scale would otherwise be ∞ and its quotient 0, turn the norm into NaN.</remarks>
     private static double NormPass<TTerms>(ref double k0, int n, double h, ReadOnlySpan<double> c, ref double ry, ref double rn, ref double ra, double rtol)
         where TTerms : struct, ITermCount
     {
         int m = TTerms.Count;
         if (c.Length < m) ThrowShort();
-        int i = 0;
+        ref double k1 = ref Unsafe.Add(ref k0, m > 1 ? 1 * n : 0);
+        ref double k2 = ref Unsafe.Add(ref k0, m > 2 ? 2 * n : 0);
+        ref double k3 = ref Unsafe.Add(ref k0, m > 3 ? 3 * n : 0);
+        ref double k4 = ref Unsafe.Add(ref k0, m > 4 ? 4 * n : 0);
+        ref double k5 = ref Unsafe.Add(ref k0, m > 5 ? 5 * n : 0);
+        ref double k6 = ref Unsafe.Add(ref k0, m > 6 ? 6 * n : 0);
+        ref double k7 = ref Unsafe.Add(ref k0, m > 7 ? 7 * n : 0);
+        nuint i = 0, count = (nuint)n;
+        nuint w = (nuint)Vector<double>.Count;
         double s = 0.0;
-        int w = Vector<double>.Count;
-        if (Vector.IsHardwareAccelerated && n >= w)
+        if (Vector.IsHardwareAccelerated && count >= w)
         {
             Vector<double> v0 = m > 0 ? new(h * c[0]) : default, v1 = m > 1 ? new(h * c[1]) : default, v2 = m > 2 ? new(h * c[2]) : default, v3 = m > 3 ? new(h * c[3]) : default, v4 = m > 4 ? new(h * c[4]) : default, v5 = m > 5 ? new(h * c[5]) : default, v6 = m > 6 ? new(h * c[6]) : default, v7 = m > 7 ? new(h * c[7]) : default;
             var vr = new Vector<double>(rtol);
             var sum = Vector<double>.Zero;
-            for (; i <= n - w; i += w)
+            for (; i <= count - w; i += w)
             {
-                nuint u = (nuint)i;
-                var acc = Vector<double>.Zero;
-                if (m > 0) acc += v0 * Vector.LoadUnsafe(ref k0, u);
-                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 1 * n), u);
-                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 2 * n), u);
-                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 3 * n), u);
-                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 4 * n), u);
-                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 5 * n), u);
-                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 6 * n), u);
-                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref Unsafe.Add(ref k0, 7 * n), u);
-                var sc = Vector.LoadUnsafe(ref ra, u) + vr * Vector.Max(Vector.Abs(Vector.LoadUnsafe(ref ry, u)), Vector.Abs(Vector.LoadUnsafe(ref rn, u)));
+                var acc = v0 * Vector.LoadUnsafe(ref k0, i); // m ≥ 1: a norm pass has at least one term
+                if (m > 1) acc += v1 * Vector.LoadUnsafe(ref k1, i);
+                if (m > 2) acc += v2 * Vector.LoadUnsafe(ref k2, i);
+                if (m > 3) acc += v3 * Vector.LoadUnsafe(ref k3, i);
+                if (m > 4) acc += v4 * Vector.LoadUnsafe(ref k4, i);
+                if (m > 5) acc += v5 * Vector.LoadUnsafe(ref k5, i);
+                if (m > 6) acc += v6 * Vector.LoadUnsafe(ref k6, i);
+                if (m > 7) acc += v7 * Vector.LoadUnsafe(ref k7, i);
+                var yn = Vector.LoadUnsafe(ref rn, i);
+                // |y|, |ŷ| ≥ 0, so the native maximum (no signed-zero ordering) is exact; a NaN in ŷ reaches the sum through ŷ − ŷ.
+                var sc = Vector.LoadUnsafe(ref ra, i) + vr * Vector.MaxNative(Vector.Abs(Vector.LoadUnsafe(ref ry, i)), Vector.Abs(yn));
                 var q = acc / sc;
-                sum += q * q;
+                sum += q * q + (yn - yn);
             }
             s = Vector.Sum(sum);
         }
-        for (; i < n; i++)
+        for (; i < count; i++)
         {
-            double acc = 0.0;
-            if (m > 0) acc += h * c[0] * Unsafe.Add(ref k0, 0 * n + i);
-            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k0, 1 * n + i);
-            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k0, 2 * n + i);
-            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k0, 3 * n + i);
-            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k0, 4 * n + i);
-            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k0, 5 * n + i);
-            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k0, 6 * n + i);
-            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k0, 7 * n + i);
-            double sc = Unsafe.Add(ref ra, i) + rtol * Math.Max(Math.Abs(Unsafe.Add(ref ry, i)), Math.Abs(Unsafe.Add(ref rn, i)));
+            double acc = h * c[0] * Unsafe.Add(ref k0, i);
+            if (m > 1) acc += h * c[1] * Unsafe.Add(ref k1, i);
+            if (m > 2) acc += h * c[2] * Unsafe.Add(ref k2, i);
+            if (m > 3) acc += h * c[3] * Unsafe.Add(ref k3, i);
+            if (m > 4) acc += h * c[4] * Unsafe.Add(ref k4, i);
+            if (m > 5) acc += h * c[5] * Unsafe.Add(ref k5, i);
+            if (m > 6) acc += h * c[6] * Unsafe.Add(ref k6, i);
+            if (m > 7) acc += h * c[7] * Unsafe.Add(ref k7, i);
+            double yn = Unsafe.Add(ref rn, i);
+            double sc = Unsafe.Add(ref ra, i) + rtol * Math.Max(Math.Abs(Unsafe.Add(ref ry, i)), Math.Abs(yn));
             double q = acc / sc;
-            s += q * q;
+            s += q * q + (yn - yn);
         }
         return s;
     }

@@ -44,12 +44,68 @@ public sealed class StageOpsTests
     }
 
     [Theory]
+    [InlineData(1)]
+    [InlineData(5)]
+    [InlineData(20)]
+    [InlineData(23)]
+    public void SizedCombineEqualsThePlainSumInStageOrder(int n)
+    {
+        // The stepper's unchecked pass (1 to 8 terms) must give the same bits as the checked one and the plain loop.
+        var rng = new Random(50 + n);
+        for (int count = 1; count <= StageOps.MaxSizedTerms; count++)
+        {
+            double h = 0.29;
+            var a = Enumerable.Range(0, count).Select(_ => rng.NextDouble() - 0.5).ToArray();
+            var k = Enumerable.Range(0, count * n).Select(_ => rng.NextDouble() * 10 - 5).ToArray();
+            var y = Enumerable.Range(0, n).Select(_ => rng.NextDouble()).ToArray();
+            var expected = new double[n];
+            for (int i = 0; i < n; i++)
+            {
+                double acc = y[i];
+                for (int j = 0; j < count; j++) acc += h * a[j] * k[j * n + i];
+                expected[i] = acc;
+            }
+            var output = new double[n];
+            StageOps.CombineSized(ref y[0], h, a, count, ref k[0], n, ref output[0]);
+            Assert.Equal(expected, output);
+        }
+    }
+
+    [Theory]
     [InlineData(3)]
     [InlineData(20)]
     [InlineData(23)]
-    public void ErrorNormEqualsTheWeightedRmsOfThePlainSum(int n)
+    public void ErrorMeanSquareIsNaNWhenTheNewStateOverflowsFromFiniteStages(int n)
     {
-        // Hairer, Nørsett and Wanner I, Sect. II.4, eq. 4.11: √(1/n Σ (e_i / (atol_i + rtol·max(|y_i|, |ŷ_i|)))²).
+        // Finite stages can still sum to ±∞ in ŷ; its scale atol + rtol·|ŷ| is then ∞ and the quotient 0, which must not pass
+        // for a small error: the norm is NaN, so the stepper looks for the non-finite component (IEEE 754: ∞ − ∞ is NaN).
+        // Two stages take the fused pass, ten the scratch vector and the separate norm.
+        foreach (int count in new[] { 2, 10 })
+        {
+            var e = Enumerable.Range(0, count).Select(j => j % 2 == 0 ? 0.1 : -0.1).ToArray();
+            var k = Enumerable.Range(0, count * n).Select(i => 1.0 + i % 3).ToArray();
+            var y = Enumerable.Repeat(1.0, n).ToArray();
+            var atol = Enumerable.Repeat(1e-8, n).ToArray();
+            foreach (int bad in new[] { 0, n - 1 })
+            {
+                var yNew = Enumerable.Repeat(1.0, n).ToArray();
+                double finite = StageOps.ErrorMeanSquare(0.01, e, count, k, n, y, yNew, atol, 1e-6, new double[n]);
+                Assert.True(double.IsFinite(finite));
+                yNew[bad] = double.PositiveInfinity;
+                Assert.True(double.IsNaN(StageOps.ErrorMeanSquare(0.01, e, count, k, n, y, yNew, atol, 1e-6, new double[n])), $"{count} stages, ∞ at [{bad}]");
+                yNew[bad] = double.NaN;
+                Assert.True(double.IsNaN(StageOps.ErrorMeanSquare(0.01, e, count, k, n, y, yNew, atol, 1e-6, new double[n])), $"{count} stages, NaN at [{bad}]");
+            }
+        }
+    }
+
+    [Theory]
+    [InlineData(3)]
+    [InlineData(20)]
+    [InlineData(23)]
+    public void ErrorMeanSquareEqualsTheSquaredWeightedRmsOfThePlainSum(int n)
+    {
+        // Hairer, Nørsett and Wanner I, Sect. II.4, eq. 4.11: √(1/n Σ (e_i / (atol_i + rtol·max(|y_i|, |ŷ_i|)))²), squared.
         var rng = new Random(100 + n);
         for (int count = 1; count <= 12; count++)
         {
@@ -67,8 +123,8 @@ public sealed class StageOpsTests
                 double q = acc / (atol[i] + rtol * Math.Max(Math.Abs(y[i]), Math.Abs(yNew[i])));
                 sum += q * q;
             }
-            double expected = Math.Sqrt(sum / n);
-            double actual = StageOps.ErrorNorm(h, e, count, k, n, y, yNew, atol, rtol, new double[n]);
+            double expected = sum / n; // the square of the norm: the steppers hand err² to the controller
+            double actual = StageOps.ErrorMeanSquare(h, e, count, k, n, y, yNew, atol, rtol, new double[n]);
             // The vector part sums the squares lane by lane: equal to rounding, not bit for bit.
             Assert.Equal(expected, actual, expected * 1e-13);
         }

@@ -31,9 +31,9 @@ internal sealed class EulerMaruyamaStepper : Stepper
     }
 
     public override TrialOutcome Attempt(double t, double h, ReadOnlySpan<double> y, Span<double> yNew, bool estimateError,
-        ReadOnlySpan<double> atol, double rtol, out double errorNorm, out int badIndex)
+        ReadOnlySpan<double> atol, double rtol, out double errorSquared, out int badIndex)
     {
-        errorNorm = double.NaN;
+        errorSquared = double.NaN;
         _noise.Diffusion(t, y, _sigma);
         double sqrtH = Math.Sqrt(h);
         for (int i = 0; i < N; i++)

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 
 namespace Thermostrat.Model.Numerics.Ode;
@@ -38,24 +39,34 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
         return VectorOps.FirstNonFinite(k0);
     }
 
+    // Kept out of the solver's loop: inlined there (through guarded devirtualisation) it shares one register allocation with
+    // the whole loop and spills more; measured about 3 ns per step faster apart (bench/OdeBench.cs).
+    [MethodImpl(MethodImplOptions.NoInlining)]
     public override TrialOutcome Attempt(double t, double h, ReadOnlySpan<double> y, Span<double> yNew, bool estimateError,
-        ReadOnlySpan<double> atol, double rtol, out double errorNorm, out int badIndex)
+        ReadOnlySpan<double> atol, double rtol, out double errorSquared, out int badIndex)
     {
         int n = N;
+        if (y.Length < n || yNew.Length < n) throw new ArgumentException("The state buffers are shorter than the system dimension.");
         var k = _k.AsSpan();
         var tab = _tab;
+        ref double ry = ref MemoryMarshal.GetReference(y);
+        ref double rk = ref MemoryMarshal.GetArrayDataReference(_k);
         for (int s = 1; s < _s; s++)
         {
             Span<double> arg = s == _s - 1 ? yNew : _stage;
-            StageOps.Combine(y, h, tab.A[s], s, k, n, arg);
+            // The stage buffers were sized in the constructor and y, yNew checked above, so rows of up to eight terms (all the
+            // tableaux here) take the unchecked pass; longer rows the checked one.
+            if (s <= StageOps.MaxSizedTerms) StageOps.CombineSized(ref ry, h, tab.A[s], s, ref rk, n, ref MemoryMarshal.GetReference(arg));
+            else StageOps.Combine(y, h, tab.A[s], s, k, n, arg);
             Evaluate(t + tab.C[s] * h, arg, k.Slice(s * n, n));
         }
-        errorNorm = estimateError && tab.E is not null
-            ? StageOps.ErrorNorm(h, tab.E, _s, k, n, y, yNew, atol, rtol, _error)
+        errorSquared = estimateError && tab.E is not null
+            ? StageOps.ErrorMeanSquare(h, tab.E, _s, k, n, y, yNew, atol, rtol, _error)
             : double.NaN;
-        if (estimateError && tab.E is not null && double.IsFinite(errorNorm))
+        if (estimateError && tab.E is not null && double.IsFinite(errorSquared))
         {
-            // A finite error norm implies every stage is finite; yNew is a combination of them.
+            // A finite error norm implies every stage is finite (each enters the sum, zero weights included, and 0·∞ is NaN)
+            // and so is yNew (the norm pass adds ŷ − ŷ, NaN for an overflowed component).
             badIndex = -1;
             return TrialOutcome.Computed;
         }

@@ -15,7 +15,8 @@ namespace Thermostrat.Model.Numerics.Ode;
 /// predictive controller (Hairer and Wanner II, Sect. IV.8), both with safety 0.9 and step ratios limited to [0.2, 10] (explicit) or
 /// [0.2, 6] (RODAS4). The first step follows Hairer, Nørsett and Wanner I, Sect. II.4. Stiffness (explicit DOPRI5 and Auto): the
 /// ratio ‖f(y₇) − f(y₆)‖/‖y₇ − y₆‖ of the two stages at c = 1 estimates |λ|; |hλ| &gt; 3.25 on 15 steps without 6 in a row below
-/// it reports stiffness (Hairer and Wanner II, Sect. IV.2, as in their DOPRI5 code), and Auto then continues with RODAS4.</para>
+/// it reports stiffness (Hairer and Wanner II, Sect. IV.2, as in their DOPRI5 code, which also makes the estimate only on every
+/// NSTIFF-th step until stiffness is suspected: here every 10th), and Auto then continues with RODAS4.</para>
 /// <para>Events: sign changes of g(t, y) between step ends are located on the step's dense output by the Illinois method
 /// (Dowell and Jarratt 1971, BIT 11, 168) to <see cref="SolverOptions.EventTimeTolerance"/>.</para>
 /// <para>Time-dependent forcing enters through t, which <see cref="IOdeSystem.Evaluate{T}"/> receives as a <see cref="double"/>;
@@ -79,6 +80,13 @@ public static class OdeSolver
 
         /// <summary>Stiffness is reported after this many consecutive-ish steps with |hλ| beyond the stability boundary (DOPRI5 code: 15).</summary>
         private const int StiffStepsToReport = 15;
+
+        /// <summary>
+        /// While stiffness is not suspected, the estimate is made on every this many accepted steps; once one estimate lies beyond
+        /// the stability boundary, on every step until the count is reset (the DOPRI5 code's NSTIFF, whose default is 1000; 10
+        /// here, so that Auto switches within a few dozen steps of the onset while the estimate costs little).
+        /// </summary>
+        private const int StiffnessTestInterval = 10;
 
         /// <summary>This many steps inside the stability region reset the stiffness count (DOPRI5 code: 6).</summary>
         private const int NonStiffStepsToReset = 6;
@@ -226,7 +234,7 @@ public static class OdeSolver
                     }
                 }
 
-                var outcome = _stepper.Attempt(t, hTry, _y, _yNew, adaptive, _atol, _rtol, out double err, out int badIndex);
+                var outcome = _stepper.Attempt(t, hTry, _y, _yNew, adaptive, _atol, _rtol, out double errSq, out int badIndex);
                 attempts++;
                 if (outcome == TrialOutcome.Singular)
                 {
@@ -251,10 +259,10 @@ public static class OdeSolver
                     h = hTry * NonFiniteShrink;
                     continue;
                 }
-                if (adaptive && !(err <= 1.0))
+                if (adaptive && !(errSq <= 1.0))
                 {
                     _counters.Rejected++;
-                    h = _controller.Rejected(hTry, err);
+                    h = _controller.Rejected(hTry, errSq);
                     continue;
                 }
 
@@ -263,7 +271,7 @@ public static class OdeSolver
                 lastBadIndex = -1;
                 _counters.Accepted++;
                 double tNew = last ? _tEnd : t + hTry;
-                double hNext = adaptive ? _controller.Accepted(hTry, err) : hFixed;
+                double hNext = adaptive ? _controller.Accepted(hTry, errSq) : hFixed;
 
                 // Events on this step, in time order; a terminal one ends the solve.
                 double stopTime = tNew;
@@ -298,7 +306,8 @@ public static class OdeSolver
                 }
 
                 bool switchNow = false;
-                if (adaptive && !double.IsNaN(_stepper.StabilityBoundary) && (_stiffAt is null || _options.Method == OdeMethod.Auto))
+                if (adaptive && (_stiffCount > 0 || _counters.Accepted % StiffnessTestInterval == 0)
+                    && !double.IsNaN(_stepper.StabilityBoundary) && (_stiffAt is null || _options.Method == OdeMethod.Auto))
                     switchNow = StiffnessTest(_stepper.StiffnessEstimate(hTry, _yNew), tNew);
 
                 _stepper.Accept(tNew, _yNew);

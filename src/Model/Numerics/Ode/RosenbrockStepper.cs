@@ -109,10 +109,10 @@ internal sealed class RosenbrockStepper : Stepper
     }
 
     public override TrialOutcome Attempt(double t, double h, ReadOnlySpan<double> y, Span<double> yNew, bool estimateError,
-        ReadOnlySpan<double> atol, double rtol, out double errorNorm, out int badIndex)
+        ReadOnlySpan<double> atol, double rtol, out double errorSquared, out int badIndex)
     {
         int n = N;
-        errorNorm = double.NaN;
+        errorSquared = double.NaN;
         badIndex = -1;
         _denseReady = false;
         if (!_jacobianCurrent)
@@ -162,8 +162,8 @@ internal sealed class RosenbrockStepper : Stepper
         if (badIndex >= 0) return TrialOutcome.NonFinite;
         if (estimateError)
         {
-            errorNorm = StageOps.ErrorNorm(1.0, tab.E, _s, u, n, y, yNew, atol, rtol, _scratch);
-            if (double.IsNaN(errorNorm))
+            errorSquared = StageOps.ErrorMeanSquare(1.0, tab.E, _s, u, n, y, yNew, atol, rtol, _scratch);
+            if (double.IsNaN(errorSquared))
             {
                 for (int s = 0; s < _s && badIndex < 0; s++) badIndex = VectorOps.FirstNonFinite(u.Slice(s * n, n));
                 return TrialOutcome.NonFinite;

@@ -1,7 +1,9 @@
 namespace Thermostrat.Model.Numerics.Ode;
 
 /// <summary>
-/// Step-size control from the error norm err of each attempt (err ≤ 1 accepts), with k = ErrorOrder + 1.
+/// Step-size control from the error norm err of each attempt (err ≤ 1 accepts), with k = ErrorOrder + 1. The controller
+/// receives err², the mean square the steppers compute, so that no square root stands between the last stage and the
+/// next step size: powers of err are taken as powers of err² with halved exponents.
 /// </summary>
 /// <remarks>
 /// <para>Explicit methods: the PI controller h_new = h · safety · err_n^(−α) · err_{n−1}^β with α = 1/k − 0.75β,
@@ -27,9 +29,12 @@ internal sealed class StepSizeController
     /// <summary>Floor on the remembered error, so one nearly exact step does not trigger an overlong next step (DOPRI5: 1e-4; RODAS: 1e-2).</summary>
     private const double ErrorFloorExplicit = 1e-4, ErrorFloorRosenbrock = 1e-2;
 
+    /// <summary>Floor on err itself before its logarithm or root is taken (err = 0 takes the largest factor).</summary>
+    private const double TinyError = 1e-16;
+
     private readonly bool _predictive;
     private readonly double _k, _alpha, _beta, _maxFactor;
-    private double _errOld, _logErrOld, _hOld;
+    private double _errOldSq, _logErrSqOld, _hOld;
     private bool _lastRejected, _hasHistory;
 
     public StepSizeController(int errorOrder, bool predictive)
@@ -39,35 +44,37 @@ internal sealed class StepSizeController
         _beta = predictive ? 0.0 : 0.2 / _k;
         _alpha = 1.0 / _k - 0.75 * _beta;
         _maxFactor = predictive ? MaxFactorRosenbrock : MaxFactorExplicit;
-        _errOld = predictive ? ErrorFloorRosenbrock : ErrorFloorExplicit;
-        _logErrOld = Math.Log(_errOld);
+        double floor = predictive ? ErrorFloorRosenbrock : ErrorFloorExplicit;
+        _errOldSq = floor * floor;
+        _logErrSqOld = Math.Log(_errOldSq);
     }
 
-    /// <summary>x^(1/k), with the common k = 4 by two square roots (cheaper than <see cref="Math.Pow"/>).</summary>
-    private double Root(double x) => _k == 4 ? Math.Sqrt(Math.Sqrt(x)) : Math.Pow(x, 1.0 / _k);
+    /// <summary>err^(1/k) from x = err², i.e. x^(1/(2k)); the common k = 4 by three square roots (cheaper than <see cref="Math.Pow"/>).</summary>
+    private double RootOfSquare(double x) => _k == 4 ? Math.Sqrt(Math.Sqrt(Math.Sqrt(x))) : Math.Pow(x, 0.5 / _k);
 
-    /// <summary>Next step size after accepting a step of size h with error norm err.</summary>
-    public double Accepted(double h, double err)
+    /// <summary>Next step size after accepting a step of size h whose error norm is √<paramref name="errSquared"/>.</summary>
+    public double Accepted(double h, double errSquared)
     {
         double factor;
         if (_predictive)
         {
-            double e = Math.Max(err, 1e-16);
-            factor = Safety / Root(e);
+            double eSq = Math.Max(errSquared, TinyError * TinyError);
+            factor = Safety / RootOfSquare(eSq);
             if (_hasHistory)
             {
-                double predictive = Safety * (h / _hOld) * Root(_errOld / (e * e));
+                // (err_old / err²)^(1/k) = (err_old² / err⁴)^(1/(2k)).
+                double predictive = Safety * (h / _hOld) * RootOfSquare(_errOldSq / (eSq * eSq));
                 factor = Math.Min(factor, predictive);
             }
-            _errOld = Math.Max(ErrorFloorRosenbrock, err);
+            _errOldSq = Math.Max(ErrorFloorRosenbrock * ErrorFloorRosenbrock, errSquared);
         }
         else
         {
-            // err^(−α)·err_old^β as one exponential; the logarithm of the remembered error is kept from the previous step.
-            double logErr = Math.Log(Math.Max(err, ErrorFloorExplicit * 1e-12));
-            factor = err == 0.0 ? _maxFactor : Safety * Math.Exp(-_alpha * logErr + _beta * _logErrOld);
-            _errOld = Math.Max(err, ErrorFloorExplicit);
-            _logErrOld = err > ErrorFloorExplicit ? logErr : Math.Log(ErrorFloorExplicit);
+            // err^(−α)·err_old^β = exp(−(α/2) ln err² + (β/2) ln err_old²); the remembered logarithm is kept from the previous step.
+            const double floorSq = ErrorFloorExplicit * ErrorFloorExplicit;
+            double logErrSq = Math.Log(Math.Max(errSquared, TinyError * TinyError));
+            factor = errSquared == 0.0 ? _maxFactor : Safety * Math.Exp(0.5 * (-_alpha * logErrSq + _beta * _logErrSqOld));
+            _logErrSqOld = errSquared > floorSq ? logErrSq : Math.Log(floorSq);
         }
         factor = Math.Clamp(factor, MinFactor, _maxFactor);
         if (_lastRejected) factor = Math.Min(factor, 1.0);
@@ -77,11 +84,11 @@ internal sealed class StepSizeController
         return h * factor;
     }
 
-    /// <summary>Step size to retry with after rejecting a step of size h with error norm err &gt; 1.</summary>
-    public double Rejected(double h, double err)
+    /// <summary>Step size to retry with after rejecting a step of size h whose error norm is √<paramref name="errSquared"/> &gt; 1.</summary>
+    public double Rejected(double h, double errSquared)
     {
         _lastRejected = true;
-        double factor = double.IsFinite(err) ? Safety / Root(err) : MinFactor;
+        double factor = double.IsFinite(errSquared) ? Safety / RootOfSquare(errSquared) : MinFactor;
         return h * Math.Clamp(factor, MinFactor, 1.0);
     }
 }

@@ -52,12 +52,13 @@ internal abstract class Stepper
     public abstract int Start(double t, ReadOnlySpan<double> y);
 
     /// <summary>
-    /// Attempts a step of size h from (t, y) into <paramref name="yNew"/>. With <paramref name="estimateError"/> the weighted RMS error
-    /// norm is returned in <paramref name="errorNorm"/> (NaN when the method has no estimate). <paramref name="badIndex"/> names the
+    /// Attempts a step of size h from (t, y) into <paramref name="yNew"/>. With <paramref name="estimateError"/> the square of the
+    /// weighted RMS error norm is returned in <paramref name="errorSquared"/> (NaN when the method has no estimate; the step is
+    /// acceptable when it is ≤ 1). <paramref name="badIndex"/> names the
     /// first non-finite component when the outcome is <see cref="TrialOutcome.NonFinite"/>.
     /// </summary>
     public abstract TrialOutcome Attempt(double t, double h, ReadOnlySpan<double> y, Span<double> yNew, bool estimateError,
-        ReadOnlySpan<double> atol, double rtol, out double errorNorm, out int badIndex);
+        ReadOnlySpan<double> atol, double rtol, out double errorSquared, out int badIndex);
 
     /// <summary>y(t + θh) on the last computed step, 0 ≤ θ ≤ 1, from its continuous extension.</summary>
     public abstract void Interpolate(double theta, double h, ReadOnlySpan<double> y, ReadOnlySpan<double> yNew, Span<double> output);
