@@ -47,19 +47,26 @@ internal sealed class ExplicitRungeKuttaStepper : Stepper
     {
         int n = N;
         if (y.Length < n || yNew.Length < n) throw new ArgumentException("The state buffers are shorter than the system dimension.");
+        // Everything the stage loop reads is held in locals: fields would be reloaded after every call of f.
         var k = _k.AsSpan();
         var tab = _tab;
+        double[][] a = tab.A;
+        double[] c = tab.C;
+        Span<double> stage = _stage;
+        RhsFunction<double> f = F;
+        int last = _s - 1;
         ref double ry = ref MemoryMarshal.GetReference(y);
         ref double rk = ref MemoryMarshal.GetArrayDataReference(_k);
-        for (int s = 1; s < _s; s++)
+        for (int s = 1; s <= last; s++)
         {
-            Span<double> arg = s == _s - 1 ? yNew : _stage;
+            Span<double> arg = s == last ? yNew : stage;
             // The stage buffers were sized in the constructor and y, yNew checked above, so rows of up to eight terms (all the
             // tableaux here) take the unchecked pass; longer rows the checked one.
-            if (s <= StageOps.MaxSizedTerms) StageOps.CombineSized(ref ry, h, tab.A[s], s, ref rk, n, ref MemoryMarshal.GetReference(arg));
-            else StageOps.Combine(y, h, tab.A[s], s, k, n, arg);
-            Evaluate(t + tab.C[s] * h, arg, k.Slice(s * n, n));
+            if (s <= StageOps.MaxSizedTerms) StageOps.CombineSized(ref ry, h, a[s], s, ref rk, n, ref MemoryMarshal.GetReference(arg));
+            else StageOps.Combine(y, h, a[s], s, k, n, arg);
+            f(t + c[s] * h, arg, MemoryMarshal.CreateSpan(ref Unsafe.Add(ref rk, s * n), n));
         }
+        Counters.FunctionEvaluations += last;
         errorSquared = estimateError && tab.E is not null
             ? StageOps.ErrorMeanSquare(h, tab.E, _s, k, n, y, yNew, atol, rtol, _error)
             : double.NaN;
