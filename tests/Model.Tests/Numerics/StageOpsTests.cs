@@ -10,6 +10,19 @@ namespace Thermostrat.Model.Tests.Numerics;
 /// </summary>
 public sealed class StageOpsTests
 {
+    /// <summary>The definition the kernels must reproduce bit for bit: y_i + Σ_j (h a_j) K_j,i added in stage order.</summary>
+    private static double[] PlainSum(double[] y, double h, double[] a, int count, double[] k, int n)
+    {
+        var sum = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            double acc = y[i];
+            for (int j = 0; j < count; j++) acc += h * a[j] * k[j * n + i];
+            sum[i] = acc;
+        }
+        return sum;
+    }
+
     [Theory]
     [InlineData(1)]
     [InlineData(3)]
@@ -26,13 +39,7 @@ public sealed class StageOpsTests
             var a = Enumerable.Range(0, count).Select(_ => rng.NextDouble() - 0.5).ToArray();
             var k = Enumerable.Range(0, Math.Max(count, 1) * n).Select(_ => rng.NextDouble() * 10 - 5).ToArray();
             var y = Enumerable.Range(0, n).Select(_ => rng.NextDouble()).ToArray();
-            var expected = new double[n];
-            for (int i = 0; i < n; i++)
-            {
-                double acc = y[i];
-                for (int j = 0; j < count; j++) acc += h * a[j] * k[j * n + i];
-                expected[i] = acc;
-            }
+            var expected = PlainSum(y, h, a, count, k, n);
             var output = new double[n];
             StageOps.Combine(y, h, a, count, k, n, output);
             Assert.Equal(expected, output);
@@ -58,13 +65,7 @@ public sealed class StageOpsTests
             var a = Enumerable.Range(0, count).Select(_ => rng.NextDouble() - 0.5).ToArray();
             var k = Enumerable.Range(0, count * n).Select(_ => rng.NextDouble() * 10 - 5).ToArray();
             var y = Enumerable.Range(0, n).Select(_ => rng.NextDouble()).ToArray();
-            var expected = new double[n];
-            for (int i = 0; i < n; i++)
-            {
-                double acc = y[i];
-                for (int j = 0; j < count; j++) acc += h * a[j] * k[j * n + i];
-                expected[i] = acc;
-            }
+            var expected = PlainSum(y, h, a, count, k, n);
             var output = new double[n];
             StageOps.CombineSized(ref y[0], h, a, count, ref k[0], n, ref output[0]);
             Assert.Equal(expected, output);
